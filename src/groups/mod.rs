@@ -1,0 +1,5 @@
+//! Benson groups: keys, tables loaded from group-tables/, assignment and corrections.
+
+pub mod key;
+
+pub use key::GroupKey;

@@ -1,0 +1,3 @@
+//! ringheat command line: reads arguments, calls the library, prints.
+
+fn main() {}
