@@ -1,0 +1,1 @@
+//! Group tables: loads group-tables/*.toml (values, uncertainties, sources) and validates them.

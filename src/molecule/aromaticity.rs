@@ -1,0 +1,1 @@
+//! Aromaticity perception on Kekulé structures (Hückel rule over rings and fused ring pairs).

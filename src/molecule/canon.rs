@@ -1,0 +1,1 @@
+//! Canonical SMILES of our own design: the same molecule always gets the same string.

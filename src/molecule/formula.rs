@@ -1,0 +1,1 @@
+//! Molecular formula (Hill order) and molar mass.

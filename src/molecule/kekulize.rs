@@ -1,0 +1,1 @@
+//! Kekulization: assigns alternating bond orders to aromatic input by a perfect matching.

@@ -1,0 +1,1 @@
+//! Ring perception: smallest set of smallest rings and ring systems (isolated, fused, bridged, spiro).

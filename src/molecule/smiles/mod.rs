@@ -1,0 +1,1 @@
+//! SMILES parsing (OpenSMILES) into a molecular graph, with located errors.
