@@ -1,12 +1,23 @@
 //! ringheat: ring-strain thermochemistry from SMILES.
 //!
 //! The pipeline is plain functions over plain data: parse a SMILES into a [`molecule::Molecule`],
-//! perceive its rings, assign Benson groups, sum properties, build isodesmic reactions, report.
+//! perceive its rings and aromaticity ([`molecule::PerceivedMolecule`]), assign Benson groups and
+//! sum them with corrections ([`thermo::GroupAdditivity`]), and report the results
+//! ([`report`]). The command-line program is a thin layer over these.
 //!
 //! ```
-//! let mol = ringheat::molecule::parse_smiles("C1CC1").unwrap();
-//! assert_eq!(mol.atom_count(), 3);
+//! use ringheat::molecule::PerceivedMolecule;
+//! use ringheat::thermo::{EstimateOptions, GroupAdditivity};
+//!
+//! let engine = GroupAdditivity::bundled().unwrap();
+//! let cyclopropane = PerceivedMolecule::from_smiles("C1CC1").unwrap();
+//! let estimate = engine.estimate(&cyclopropane, &EstimateOptions::default()).unwrap();
+//! // Measured: 53.3 kJ/mol (CRC Handbook); group additivity with the ring correction is close.
+//! assert!((estimate.hf298_kj.value - 53.3).abs() < 5.0);
 //! ```
 
 pub mod groups;
+pub mod input;
 pub mod molecule;
+pub mod report;
+pub mod thermo;

@@ -6,6 +6,7 @@ pub mod element;
 pub mod formula;
 pub mod graph;
 pub mod kekulize;
+pub mod perceived;
 pub mod rings;
 pub mod smiles;
 pub mod symmetry;
@@ -14,5 +15,6 @@ pub use element::Element;
 pub use graph::{
     Atom, Bond, BondDirection, BondOrder, ChiralCentre, ChiralTag, Molecule, StereoNeighbour,
 };
+pub use perceived::PerceivedMolecule;
 #[allow(unused_imports)]
 pub use smiles::*;

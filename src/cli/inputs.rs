@@ -1,0 +1,46 @@
+//! Where the SMILES come from: arguments, a file, or standard input.
+
+use std::io::BufReader;
+use std::path::PathBuf;
+
+use clap::Args;
+
+use ringheat::input::{read_records, records_from_arguments, InputRecord};
+use ringheat::report::OutputFormat;
+
+/// Input and output options shared by the commands.
+#[derive(Debug, Args)]
+pub struct InputArgs {
+    /// SMILES to read (each argument one molecule).
+    pub smiles: Vec<String>,
+    /// Read molecules from this file, one per line: SMILES, then an optional name
+    /// (`-` for standard input; `#` starts a comment line).
+    #[arg(short, long)]
+    pub file: Option<PathBuf>,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = OutputFormat::Table)]
+    pub format: OutputFormat,
+}
+
+impl InputArgs {
+    /// All records: arguments first, then the file; standard input when neither is given.
+    pub fn records(&self) -> Result<Vec<InputRecord>, Box<dyn std::error::Error>> {
+        let mut records = records_from_arguments(&self.smiles);
+        match &self.file {
+            Some(path) if path.as_os_str() == "-" => {
+                records.extend(read_records(std::io::stdin().lock(), "<stdin>")?);
+            }
+            Some(path) => {
+                let name = path.display().to_string();
+                let file =
+                    std::fs::File::open(path).map_err(|e| format!("cannot open {name}: {e}"))?;
+                records.extend(read_records(BufReader::new(file), &name)?);
+            }
+            None if self.smiles.is_empty() => {
+                records.extend(read_records(std::io::stdin().lock(), "<stdin>")?);
+            }
+            None => {}
+        }
+        Ok(records)
+    }
+}

@@ -1,0 +1,34 @@
+//! Argument parsing and the subcommands; each command reads input, calls the library, prints.
+
+mod estimate;
+mod inputs;
+mod structure;
+
+use std::process::ExitCode;
+
+use clap::{Parser, Subcommand};
+
+/// Ring-strain thermochemistry from SMILES.
+#[derive(Debug, Parser)]
+#[command(name = "ringheat", version, about, long_about = None)]
+struct Cli {
+    #[command(subcommand)]
+    command: Command,
+}
+
+#[derive(Debug, Subcommand)]
+enum Command {
+    /// Canonical SMILES, formula, molar mass, rings and ring systems of each input molecule.
+    Structure(structure::StructureArgs),
+    /// Group-additivity Hf298, S298 and Cp(T) of each input molecule, with uncertainties.
+    Estimate(estimate::EstimateArgs),
+}
+
+/// Runs the command line. Bad records become error rows; only unusable options or tables fail.
+pub fn run() -> Result<ExitCode, Box<dyn std::error::Error>> {
+    let cli = Cli::parse();
+    match cli.command {
+        Command::Structure(args) => structure::run(args),
+        Command::Estimate(args) => estimate::run(args),
+    }
+}

@@ -1,0 +1,166 @@
+//! Group assignment: every heavy atom that is a group centre gets its Benson group key.
+
+use petgraph::graph::NodeIndex;
+
+use super::key::GroupKey;
+use super::typing::{type_atoms, AtomRole, AtomTypes, UntypedAtom};
+use crate::molecule::{BondOrder, PerceivedMolecule};
+
+/// One group of a molecule: the centre atom and its key.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct AssignedGroup {
+    /// The centre atom.
+    pub atom: NodeIndex,
+    /// The group in Benson's notation.
+    pub key: GroupKey,
+}
+
+/// The groups of a molecule, one per centre atom, plus the atom typing they came from.
+#[derive(Debug, Clone)]
+pub struct GroupAssignment {
+    /// Groups in atom order.
+    pub groups: Vec<AssignedGroup>,
+    /// Roles of all atoms.
+    pub types: AtomTypes,
+}
+
+/// Centre types whose multiple-bond partner is implied by the type and not listed as a ligand.
+const PARTNER_IMPLIED: &[&str] = &["Cd", "Ct", "Ca", "CI", "NI"];
+/// Centre types whose aromatic ring neighbours are implied and not listed.
+const RING_NEIGHBOURS_IMPLIED: &[&str] = &["Cb", "NA"];
+
+fn share_aromatic_six_ring(p: &PerceivedMolecule, a: NodeIndex, b: NodeIndex) -> bool {
+    p.rings.rings.iter().any(|r| {
+        r.atoms.len() == 6
+            && r.atoms.contains(&a)
+            && r.atoms.contains(&b)
+            && r.atoms.iter().all(|x| p.mol.atom(*x).aromatic)
+    })
+}
+
+/// Assigns Benson groups to a perceived molecule.
+pub fn assign_groups(p: &PerceivedMolecule) -> Result<GroupAssignment, UntypedAtom> {
+    let types = type_atoms(p)?;
+    let mut groups = Vec::new();
+    for i in p.mol.atoms() {
+        let Some(centre) = types.centre(i) else {
+            continue;
+        };
+        let mut ligands: Vec<&str> = Vec::with_capacity(4);
+        for (j, bond) in p.mol.neighbours(i) {
+            if types.roles[j.index()] == AtomRole::Absorbed(i) {
+                continue;
+            }
+            if PARTNER_IMPLIED.contains(&centre) && bond.order > BondOrder::Single {
+                continue;
+            }
+            if RING_NEIGHBOURS_IMPLIED.contains(&centre) && share_aromatic_six_ring(p, i, j) {
+                continue;
+            }
+            ligands.push(types.ligand_name(j));
+        }
+        ligands.extend(std::iter::repeat_n("H", p.mol.atom(i).hydrogens as usize));
+        groups.push(AssignedGroup {
+            atom: i,
+            key: GroupKey::new(centre, &ligands),
+        });
+    }
+    Ok(GroupAssignment { groups, types })
+}
+
+/// The generic stand-in for a key the tables lack: every carbon-type ligand taken as `C`,
+/// every nitrogen type as `N`, every sulfur type as `S`. Returns `None` when nothing changes.
+pub fn generic_stand_in(key: &GroupKey) -> Option<GroupKey> {
+    let generic = |name: &str| -> String {
+        match name {
+            "Cd" | "Ct" | "Cb" | "Cbf" | "Ca" | "CO" | "CN" | "CI" | "CS" => "C".to_string(),
+            "NI" | "NA" | "NO2" => "N".to_string(),
+            "SO" | "SO2" => "S".to_string(),
+            other => other.to_string(),
+        }
+    };
+    let ligands: Vec<String> = key
+        .ligands
+        .iter()
+        .flat_map(|(name, n)| std::iter::repeat_n(generic(name), *n as usize))
+        .collect();
+    let stand_in = GroupKey::new(&key.centre, &ligands);
+    (stand_in != *key).then_some(stand_in)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn keys(smiles: &str) -> Vec<String> {
+        let p = PerceivedMolecule::from_smiles(smiles).unwrap();
+        let mut k: Vec<String> = assign_groups(&p)
+            .unwrap()
+            .groups
+            .iter()
+            .map(|g| g.key.to_string())
+            .collect();
+        k.sort();
+        k
+    }
+
+    #[test]
+    fn textbook_assignments() {
+        assert_eq!(keys("CCC"), ["C-(C)(H)3", "C-(C)(H)3", "C-(C)2(H)2"]);
+        assert_eq!(keys("C"), ["C-(H)4"]);
+        assert_eq!(
+            keys("Cc1ccccc1"),
+            [
+                "C-(Cb)(H)3",
+                "Cb-(C)",
+                "Cb-(H)",
+                "Cb-(H)",
+                "Cb-(H)",
+                "Cb-(H)",
+                "Cb-(H)"
+            ]
+        );
+        assert_eq!(
+            keys("CC(=O)OCC"),
+            [
+                "C-(C)(H)3",
+                "C-(C)(O)(H)2",
+                "C-(CO)(H)3",
+                "CO-(C)(O)",
+                "O-(C)(CO)"
+            ]
+        );
+        assert_eq!(keys("C=C=C"), ["Ca", "Cd-(H)2", "Cd-(H)2"]);
+        assert_eq!(keys("CC#N"), ["C-(CN)(H)3", "CN-(C)"]);
+        assert_eq!(keys("C[N+](=O)[O-]"), ["C-(NO2)(H)3", "NO2-(C)"]);
+        assert_eq!(
+            keys("CS(=O)(=O)C"),
+            ["C-(SO2)(H)3", "C-(SO2)(H)3", "SO2-(C)2"]
+        );
+        assert_eq!(keys("ClCCl"), ["C-(Cl)2(H)2"]);
+        let naph = keys("c1ccc2ccccc2c1");
+        assert_eq!(naph.iter().filter(|k| *k == "Cbf-(Cb)2(Cbf)").count(), 2);
+        assert_eq!(naph.iter().filter(|k| *k == "Cb-(H)").count(), 8);
+        assert_eq!(keys("C1=CC=CC=C1"), keys("c1ccccc1"));
+        assert_eq!(
+            keys("C=CC=C"),
+            ["Cd-(Cd)(H)", "Cd-(Cd)(H)", "Cd-(H)2", "Cd-(H)2"]
+        );
+    }
+
+    #[test]
+    fn untreatable_atoms_are_named() {
+        let p = PerceivedMolecule::from_smiles("C[Si](C)(C)C").unwrap();
+        let err = assign_groups(&p).unwrap_err();
+        assert!(err.reason.contains("Si"), "{}", err.reason);
+        let p = PerceivedMolecule::from_smiles("[CH3]").unwrap();
+        assert!(assign_groups(&p).unwrap_err().reason.contains("radical"));
+    }
+
+    #[test]
+    fn stand_in_generalises_ligands() {
+        let k = GroupKey::parse("C-(Cb)(CO)(H)2").unwrap();
+        assert_eq!(generic_stand_in(&k).unwrap().to_string(), "C-(C)2(H)2");
+        assert!(generic_stand_in(&GroupKey::parse("C-(C)(H)3").unwrap()).is_none());
+    }
+}

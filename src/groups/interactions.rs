@@ -1,0 +1,213 @@
+//! Non-ring corrections: counts gauche, 1,5 (syn-pentane), cis and ortho interactions.
+//!
+//! Counting rules (the table entries of the same names give the value per occurrence):
+//! - `gauche`: for every acyclic single bond between two sp3 carbons with n1 and n2 carbon
+//!   substituents besides each other, n1*n2 - min(n1, n2) gauche pairs (the fewest a staggered
+//!   conformer can have; common practice).
+//! - `1,5-interaction`: for every pair of sp3 carbons A, B bonded to one sp3 carbon M by acyclic
+//!   bonds, with nA, nB >= 2 carbon substituents besides M, (nA-1)(nB-1)-1 interactions. Chosen to
+//!   give 0 for 2,4-dimethylpentane, 1 for 2,2,4-trimethylpentane and 3 for
+//!   2,2,4,4-tetramethylpentane (counts recalled from memory of Benson's worked examples).
+//! - `cis`: for every acyclic C=C, the pairs of non-hydrogen substituents on the same side: one
+//!   for a trisubstituted bond, two for a tetrasubstituted one, and for a 1,2-disubstituted bond
+//!   one if written Z, none if written E or unspecified (then flagged as assumed E).
+//! - `ortho`: for every bond between two `Cb` atoms that both carry a non-hydrogen substituent.
+
+use petgraph::graph::NodeIndex;
+
+use super::typing::AtomTypes;
+use crate::molecule::{BondDirection, BondOrder, Element, PerceivedMolecule};
+
+/// Counted interactions of one kind.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct InteractionCount {
+    /// Correction name as in the tables.
+    pub name: &'static str,
+    /// Occurrences.
+    pub count: u32,
+}
+
+/// All counted interactions and notes about assumptions made.
+#[derive(Debug, Clone, Default)]
+pub struct Interactions {
+    /// Non-zero counts.
+    pub counts: Vec<InteractionCount>,
+    /// Assumptions (unspecified double-bond geometry, ...).
+    pub notes: Vec<String>,
+}
+
+fn is_sp3_carbon(types: &AtomTypes, i: NodeIndex) -> bool {
+    types.centre(i) == Some("C")
+}
+
+fn is_ring_bond(p: &PerceivedMolecule, a: NodeIndex, b: NodeIndex) -> bool {
+    p.mol
+        .graph
+        .find_edge(a, b)
+        .is_some_and(|e| p.rings.is_ring_bond(e))
+}
+
+fn carbon_substituents_except(p: &PerceivedMolecule, i: NodeIndex, except: NodeIndex) -> usize {
+    p.mol
+        .neighbours(i)
+        .filter(|(n, _)| *n != except && p.mol.atom(*n).element == Element::C)
+        .count()
+}
+
+/// Counts every interaction named in the module docs.
+pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interactions {
+    let mol = &p.mol;
+    let mut gauche = 0u32;
+    let mut one_five = 0u32;
+    let mut cis = 0u32;
+    let mut ortho = 0u32;
+    let mut notes = Vec::new();
+    for e in mol.graph.edge_indices() {
+        let Some((a, b)) = mol.graph.edge_endpoints(e) else {
+            continue;
+        };
+        let bond = &mol.graph[e];
+        let in_ring = p.rings.is_ring_bond(e);
+        match bond.order {
+            BondOrder::Single if !in_ring && is_sp3_carbon(types, a) && is_sp3_carbon(types, b) => {
+                let n1 = carbon_substituents_except(p, a, b) as u32;
+                let n2 = carbon_substituents_except(p, b, a) as u32;
+                gauche += n1 * n2 - n1.min(n2);
+            }
+            BondOrder::Single
+                if types.centre(a) == Some("Cb")
+                    && types.centre(b) == Some("Cb")
+                    && bond.aromatic =>
+            {
+                let substituted = |x: NodeIndex, other: NodeIndex| {
+                    mol.neighbours(x).any(|(n, nb)| {
+                        n != other && !nb.aromatic && mol.atom(n).element != Element::H
+                    })
+                };
+                if substituted(a, b) && substituted(b, a) {
+                    ortho += 1;
+                }
+            }
+            BondOrder::Double
+                if !in_ring && types.centre(a) == Some("Cd") && types.centre(b) == Some("Cd") =>
+            {
+                let subs = |x: NodeIndex, other: NodeIndex| -> Vec<NodeIndex> {
+                    mol.neighbours(x)
+                        .filter(|(n, _)| *n != other && mol.atom(*n).element != Element::H)
+                        .map(|(n, _)| n)
+                        .collect()
+                };
+                let (sa, sb) = (subs(a, b), subs(b, a));
+                match (sa.len(), sb.len()) {
+                    (2, 2) => cis += 2,
+                    (2, 1) | (1, 2) => cis += 1,
+                    (1, 1) => match double_bond_geometry(p, a, sa[0], b, sb[0]) {
+                        Some(true) => cis += 1,
+                        Some(false) => {}
+                        None => notes.push(format!(
+                            "double bond between atoms {} and {} has no geometry in the input: \
+                             taken as E (trans), no cis correction",
+                            a.index() + 1,
+                            b.index() + 1
+                        )),
+                    },
+                    _ => {}
+                }
+            }
+            _ => {}
+        }
+    }
+    // 1,5 interactions around every sp3 carbon M.
+    for m in mol.atoms() {
+        if !is_sp3_carbon(types, m) {
+            continue;
+        }
+        let arms: Vec<NodeIndex> = mol
+            .neighbours(m)
+            .map(|(n, _)| n)
+            .filter(|&n| is_sp3_carbon(types, n) && !is_ring_bond(p, m, n))
+            .collect();
+        for (i, &x) in arms.iter().enumerate() {
+            for &y in &arms[i + 1..] {
+                let nx = carbon_substituents_except(p, x, m) as u32;
+                let ny = carbon_substituents_except(p, y, m) as u32;
+                if nx >= 2 && ny >= 2 {
+                    one_five += (nx - 1) * (ny - 1) - 1;
+                }
+            }
+        }
+    }
+    let counts = [
+        ("gauche", gauche),
+        ("1,5-interaction", one_five),
+        ("cis", cis),
+        ("ortho", ortho),
+    ]
+    .into_iter()
+    .filter(|(_, c)| *c > 0)
+    .map(|(name, count)| InteractionCount { name, count })
+    .collect();
+    Interactions { counts, notes }
+}
+
+/// Whether substituents `sa` (on `a`) and `sb` (on `b`) are cis across the double bond a=b, from
+/// the `/` `\` marks of the input; `None` when the input does not say.
+fn double_bond_geometry(
+    p: &PerceivedMolecule,
+    a: NodeIndex,
+    sa: NodeIndex,
+    b: NodeIndex,
+    sb: NodeIndex,
+) -> Option<bool> {
+    // Direction of a single bond read from `from` towards `to`.
+    let read = |from: NodeIndex, to: NodeIndex| -> Option<BondDirection> {
+        let e = p.mol.graph.find_edge(from, to)?;
+        let (written_from, d) = p.mol.graph[e].direction?;
+        Some(if written_from == from {
+            d
+        } else {
+            match d {
+                BondDirection::Up => BondDirection::Down,
+                BondDirection::Down => BondDirection::Up,
+            }
+        })
+    };
+    let da = read(sa, a).or_else(|| other_substituent_direction(p, a, sa, b))?;
+    let db = read(b, sb).or_else(|| {
+        other_substituent_direction(p, b, sb, a).map(|d| match d {
+            BondDirection::Up => BondDirection::Down,
+            BondDirection::Down => BondDirection::Up,
+        })
+    })?;
+    // F/C=C/F: same reading on both sides means trans.
+    Some(da != db)
+}
+
+/// When only the other substituent of `x` carries a mark: its direction read towards `x`,
+/// flipped (the two substituents of one end point opposite ways).
+fn other_substituent_direction(
+    p: &PerceivedMolecule,
+    x: NodeIndex,
+    s: NodeIndex,
+    partner: NodeIndex,
+) -> Option<BondDirection> {
+    let other = p
+        .mol
+        .neighbours(x)
+        .map(|(n, _)| n)
+        .find(|&n| n != s && n != partner)?;
+    let e = p.mol.graph.find_edge(other, x)?;
+    let (written_from, d) = p.mol.graph[e].direction?;
+    let towards_x = if written_from == other {
+        d
+    } else {
+        match d {
+            BondDirection::Up => BondDirection::Down,
+            BondDirection::Down => BondDirection::Up,
+        }
+    };
+    Some(match towards_x {
+        BondDirection::Up => BondDirection::Down,
+        BondDirection::Down => BondDirection::Up,
+    })
+}

@@ -1,0 +1,152 @@
+//! Ring-correction lookup: matches each ring system's skeleton against the ring tables, with a
+//! flagged fallback (sum of the single rings, then the all-carbon ring of the same shape).
+
+use super::ring_match::{correction_skeletons, skeleton_of_rings, RingSkeleton};
+use super::table::{GroupTables, RingEntry};
+use crate::molecule::PerceivedMolecule;
+
+/// A ring-table entry whose SMILES cannot serve as a ring-correction pattern.
+#[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
+#[error("{file}: ring \"{name}\": {problem}")]
+pub struct RingPatternError {
+    /// File of the entry.
+    pub file: String,
+    /// Name of the entry.
+    pub name: String,
+    /// What is wrong.
+    pub problem: String,
+}
+
+/// The ring entries with their skeletons, ready for matching.
+#[derive(Debug, Clone)]
+pub struct RingCorrectionIndex {
+    patterns: Vec<(usize, RingSkeleton)>,
+}
+
+/// How one ring system of a molecule got its correction.
+#[derive(Debug, Clone, PartialEq)]
+pub enum RingMatch {
+    /// The whole system is a table entry.
+    Exact,
+    /// Not in the tables: the parts stood in; the text says what was used.
+    Fallback(String),
+}
+
+/// The correction applied to one ring system.
+#[derive(Debug, Clone)]
+pub struct AppliedRingCorrection {
+    /// Ring-atom count of the system and its SSSR ring sizes, for display.
+    pub ring_sizes: Vec<usize>,
+    /// Indices into `GroupTables::rings()` of the entries used (one for an exact match).
+    pub entries: Vec<usize>,
+    /// Exact or fallback.
+    pub how: RingMatch,
+}
+
+impl RingCorrectionIndex {
+    /// Builds skeletons for every ring entry of the tables.
+    pub fn new(tables: &GroupTables) -> Result<RingCorrectionIndex, RingPatternError> {
+        let mut patterns = Vec::new();
+        for (i, entry) in tables.rings().iter().enumerate() {
+            let fail = |problem: String| RingPatternError {
+                file: entry.origin.file.display().to_string(),
+                name: entry.name.clone(),
+                problem,
+            };
+            let p = PerceivedMolecule::from_smiles(&entry.smiles)
+                .map_err(|e| fail(format!("smiles does not parse: {e}")))?;
+            let mut skeletons = correction_skeletons(&p);
+            if skeletons.len() != 1 {
+                return Err(fail(format!(
+                    "smiles `{}` must hold exactly one ring system that needs a correction, \
+                     found {}",
+                    entry.smiles,
+                    skeletons.len()
+                )));
+            }
+            patterns.push((i, skeletons.remove(0)));
+        }
+        Ok(RingCorrectionIndex { patterns })
+    }
+
+    /// The table entry whose skeleton is `s`, if any.
+    pub fn find(&self, s: &RingSkeleton) -> Option<usize> {
+        self.patterns
+            .iter()
+            .find(|(_, pattern)| pattern.same_as(s))
+            .map(|(i, _)| *i)
+    }
+
+    /// The entry for one ring, trying the ring itself, then all-carbon, then saturated carbon.
+    fn single_ring(&self, s: &RingSkeleton, entries: &[RingEntry]) -> Option<(usize, String)> {
+        if let Some(i) = self.find(s) {
+            return Some((i, entries[i].name.clone()));
+        }
+        if let Some(i) = self.find(&s.all_carbon()) {
+            return Some((i, format!("{} (all-carbon stand-in)", entries[i].name)));
+        }
+        self.find(&s.saturated_carbon()).map(|i| {
+            (
+                i,
+                format!("{} (saturated carbocycle stand-in)", entries[i].name),
+            )
+        })
+    }
+
+    /// Ring corrections for every ring system of `p` that needs one.
+    pub fn apply(&self, p: &PerceivedMolecule, tables: &GroupTables) -> Vec<AppliedRingCorrection> {
+        let entries = tables.rings();
+        let mut out = Vec::new();
+        for system in correction_skeletons(p) {
+            let mut ring_sizes: Vec<usize> = system
+                .rings
+                .iter()
+                .map(|&r| p.rings.rings[r].atoms.len())
+                .collect();
+            ring_sizes.sort_unstable();
+            if let Some(i) = self.find(&system) {
+                out.push(AppliedRingCorrection {
+                    ring_sizes,
+                    entries: vec![i],
+                    how: RingMatch::Exact,
+                });
+                continue;
+            }
+            let mut used = Vec::new();
+            let mut words = Vec::new();
+            let whole = if system.rings.len() == 1 {
+                self.single_ring(&system, entries)
+            } else {
+                None
+            };
+            if let Some((i, word)) = whole {
+                used.push(i);
+                words.push(word);
+            } else {
+                for &r in &system.rings {
+                    let single = skeleton_of_rings(p, &[r]);
+                    match self.single_ring(&single, entries) {
+                        Some((i, word)) => {
+                            used.push(i);
+                            words.push(word);
+                        }
+                        None => words.push(format!(
+                            "{}-ring with no entry (taken as strain-free)",
+                            single.ring_atom_count()
+                        )),
+                    }
+                }
+            }
+            out.push(AppliedRingCorrection {
+                ring_sizes: ring_sizes.clone(),
+                entries: used,
+                how: RingMatch::Fallback(format!(
+                    "ring system with rings of sizes {ring_sizes:?} is not in the ring tables; \
+                     stand-in: {}",
+                    words.join(" + ")
+                )),
+            });
+        }
+        out
+    }
+}

@@ -1,0 +1,215 @@
+//! Ring corrections: the skeleton of each ring system, and its match in the ring tables.
+//!
+//! A skeleton is the ring system's atoms (element), the bonds between them (order, or aromatic),
+//! and exocyclic atoms joined to it by a double bond (=O, =CH2, =S, =N). Hydrogens and other
+//! substituents do not count. Rings made only of aromatic carbons (benzenoid six-rings) are left
+//! out, since Benson's `Cb`/`Cbf` groups already carry them; a ring fused to one keeps the shared
+//! aromatic bond. Table entries are matched by graph isomorphism of skeletons.
+
+use std::collections::HashMap;
+
+use petgraph::graph::{NodeIndex, UnGraph};
+
+use crate::molecule::{BondOrder, Element, PerceivedMolecule};
+
+/// An atom of a ring skeleton.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub struct SkeletonAtom {
+    /// Element of the atom.
+    pub element: Element,
+    /// False for an exocyclic double-bonded atom.
+    pub in_ring: bool,
+}
+
+/// A bond of a ring skeleton.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum SkeletonBond {
+    /// A bond of the given Kekulé order outside any aromatic ring.
+    Order(BondOrder),
+    /// A bond of a perceived aromatic ring.
+    Aromatic,
+}
+
+/// The skeleton of one ring system of a molecule.
+#[derive(Debug, Clone)]
+pub struct RingSkeleton {
+    /// The skeleton graph.
+    pub graph: UnGraph<SkeletonAtom, SkeletonBond>,
+    /// Indices (into the molecule's SSSR) of the rings that make it up.
+    pub rings: Vec<usize>,
+    /// The molecule's atoms in the ring system (ring atoms only).
+    pub atoms: Vec<NodeIndex>,
+}
+
+impl RingSkeleton {
+    /// Number of ring atoms.
+    pub fn ring_atom_count(&self) -> usize {
+        self.graph.node_weights().filter(|a| a.in_ring).count()
+    }
+
+    /// A cheap invariant used to pre-filter candidates before the isomorphism test.
+    fn signature(&self) -> (usize, usize, Vec<(u8, bool)>) {
+        let mut labels: Vec<(u8, bool)> = self
+            .graph
+            .node_weights()
+            .map(|a| (a.element.atomic_number(), a.in_ring))
+            .collect();
+        labels.sort_unstable();
+        (self.graph.node_count(), self.graph.edge_count(), labels)
+    }
+
+    /// Whether two skeletons are the same labelled graph.
+    pub fn same_as(&self, other: &RingSkeleton) -> bool {
+        self.signature() == other.signature()
+            && petgraph::algo::is_isomorphic_matching(
+                &self.graph,
+                &other.graph,
+                |a, b| a == b,
+                |a, b| a == b,
+            )
+    }
+
+    /// The same skeleton with every atom carbon (the first fallback for an unlisted ring).
+    pub fn all_carbon(&self) -> RingSkeleton {
+        let mut s = self.clone();
+        for a in s.graph.node_weights_mut() {
+            a.element = Element::C;
+        }
+        s
+    }
+
+    /// Only the ring atoms, all carbon, all bonds single: the cycloalkane of the same shape.
+    pub fn saturated_carbon(&self) -> RingSkeleton {
+        let mut graph = UnGraph::new_undirected();
+        let mut map = HashMap::new();
+        for n in self.graph.node_indices() {
+            if self.graph[n].in_ring {
+                let m = graph.add_node(SkeletonAtom {
+                    element: Element::C,
+                    in_ring: true,
+                });
+                map.insert(n, m);
+            }
+        }
+        for e in self.graph.edge_indices() {
+            if let Some((a, b)) = self.graph.edge_endpoints(e) {
+                if let (Some(x), Some(y)) = (map.get(&a), map.get(&b)) {
+                    graph.add_edge(*x, *y, SkeletonBond::Order(BondOrder::Single));
+                }
+            }
+        }
+        RingSkeleton {
+            graph,
+            rings: self.rings.clone(),
+            atoms: self.atoms.clone(),
+        }
+    }
+}
+
+/// Whether SSSR ring `r` is a benzenoid ring (six aromatic carbons).
+pub fn is_benzenoid(p: &PerceivedMolecule, r: usize) -> bool {
+    let ring = &p.rings.rings[r];
+    ring.atoms.len() == 6
+        && ring.atoms.iter().all(|a| {
+            let atom = p.mol.atom(*a);
+            atom.aromatic && atom.element == Element::C
+        })
+}
+
+/// Builds the skeleton spanned by the given SSSR rings.
+pub fn skeleton_of_rings(p: &PerceivedMolecule, rings: &[usize]) -> RingSkeleton {
+    let mol = &p.mol;
+    let mut graph = UnGraph::new_undirected();
+    let mut map: HashMap<NodeIndex, NodeIndex> = HashMap::new();
+    let mut atoms = Vec::new();
+    let mut edges = Vec::new();
+    for &r in rings {
+        let ring = &p.rings.rings[r];
+        for &a in &ring.atoms {
+            if let std::collections::hash_map::Entry::Vacant(v) = map.entry(a) {
+                v.insert(graph.add_node(SkeletonAtom {
+                    element: mol.atom(a).element,
+                    in_ring: true,
+                }));
+                atoms.push(a);
+            }
+        }
+        for &e in &ring.bonds {
+            if !edges.contains(&e) {
+                edges.push(e);
+            }
+        }
+    }
+    let label = |bond: &crate::molecule::Bond| {
+        if bond.aromatic {
+            SkeletonBond::Aromatic
+        } else {
+            SkeletonBond::Order(bond.order)
+        }
+    };
+    for e in edges {
+        if let Some((a, b)) = mol.graph.edge_endpoints(e) {
+            graph.add_edge(map[&a], map[&b], label(&mol.graph[e]));
+        }
+    }
+    for &a in &atoms {
+        for (n, bond) in mol.neighbours(a) {
+            if bond.order == BondOrder::Double && !map.contains_key(&n) {
+                let x = graph.add_node(SkeletonAtom {
+                    element: mol.atom(n).element,
+                    in_ring: false,
+                });
+                graph.add_edge(map[&a], x, label(bond));
+            }
+        }
+    }
+    RingSkeleton {
+        graph,
+        rings: rings.to_vec(),
+        atoms,
+    }
+}
+
+/// The skeletons of all ring systems that need a ring correction (benzenoid rings left out).
+pub fn correction_skeletons(p: &PerceivedMolecule) -> Vec<RingSkeleton> {
+    let candidates: Vec<usize> = (0..p.rings.rings.len())
+        .filter(|&r| !is_benzenoid(p, r))
+        .collect();
+    // Union rings that share an atom.
+    let mut parent: Vec<usize> = (0..candidates.len()).collect();
+    fn find(parent: &mut [usize], x: usize) -> usize {
+        let mut r = x;
+        while parent[r] != r {
+            r = parent[r];
+        }
+        let mut y = x;
+        while parent[y] != r {
+            let next = parent[y];
+            parent[y] = r;
+            y = next;
+        }
+        r
+    }
+    for i in 0..candidates.len() {
+        for j in (i + 1)..candidates.len() {
+            let ri = &p.rings.rings[candidates[i]];
+            let rj = &p.rings.rings[candidates[j]];
+            if ri.atoms.iter().any(|a| rj.atoms.contains(a)) {
+                let (a, b) = (find(&mut parent, i), find(&mut parent, j));
+                parent[a] = b;
+            }
+        }
+    }
+    let mut systems: Vec<(usize, Vec<usize>)> = Vec::new();
+    for i in 0..candidates.len() {
+        let root = find(&mut parent, i);
+        match systems.iter_mut().find(|(r, _)| *r == root) {
+            Some((_, rings)) => rings.push(candidates[i]),
+            None => systems.push((root, vec![candidates[i]])),
+        }
+    }
+    systems
+        .into_iter()
+        .map(|(_, rings)| skeleton_of_rings(p, &rings))
+        .collect()
+}

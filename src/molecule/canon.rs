@@ -1,1 +1,0 @@
-//! Canonical SMILES of our own design: the same molecule always gets the same string.

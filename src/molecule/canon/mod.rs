@@ -1,0 +1,69 @@
+//! Canonical SMILES of our own design: the same molecule always gets the same string.
+//!
+//! The key is used to merge and look up species (reaction fragments, reference tables, batch
+//! deduplication), so it ignores how a molecule was written: atom order, ring digits, branch
+//! choices, Kekulé or lower-case aromatic spelling, explicit `[H]` nodes.
+//!
+//! Steps:
+//! 1. Fold plain hydrogen nodes into their neighbours (also those named by stereo marks).
+//! 2. Find resonant bonds: bonds that are single in one Kekulé structure and double in
+//!    another. They are ranked as one bond class and written in lower case, so the key does
+//!    not depend on the Kekulé structure of the input. Rings with a single Kekulé structure
+//!    (pyrrole, furan, quinones) are written with their fixed single and double bonds.
+//! 3. Rank atoms by their invariants, refine by neighbour ranks until stable, fold in stereo
+//!    configurations relative to ranks, and break ties (see `ranking`).
+//! 4. Drop stereo marks that do not make a stereoisomer: an element that refinement leaves
+//!    undefined is kept only if inverting it changes the key.
+//! 5. Write depth-first from the lowest-ranked atom of each component; components sorted.
+//!
+//! ```
+//! use ringheat::molecule::{canon::canonical_smiles, parse_smiles};
+//! let a = parse_smiles("C1=CC=CC=C1C").unwrap();
+//! let b = parse_smiles("Cc1ccccc1").unwrap();
+//! assert_eq!(canonical_smiles(&a), canonical_smiles(&b));
+//! ```
+//!
+//! Known limits: tie-breaking assumes that atoms left tied by refinement are symmetry
+//! equivalent, which holds for ordinary molecules and for C60, cubane and dodecahedrane but
+//! not for every regular graph; stereo marks other than tetrahedral `@`/`@@` (allene,
+//! square-planar, bipyramidal, octahedral classes) are not kept; double-bond geometry in rings
+//! of fewer than 8 atoms is not kept; resonance is perceived only over B, C, N, O, P, S, As
+//! and Se atoms at their lowest valence.
+
+mod prepare;
+mod ranking;
+mod resonance;
+mod stereo;
+mod writer;
+
+use crate::molecule::graph::Molecule;
+use prepare::Prepared;
+use stereo::StereoSet;
+
+/// The canonical SMILES of `mol`: equal for every spelling of the same molecule (including its
+/// stereo), different for different molecules, and a valid SMILES of the same graph.
+pub fn canonical_smiles(mol: &Molecule) -> String {
+    if mol.atom_count() == 0 {
+        return String::new();
+    }
+    let prepared = Prepared::new(mol);
+    let mut stereo = prepared.stereo.clone();
+    for id in ranking::undefined_after_refinement(&prepared, &stereo) {
+        let kept = key_with(&prepared, &stereo);
+        let mut flipped = stereo.clone();
+        flipped.flip(id);
+        if key_with(&prepared, &flipped) == kept {
+            stereo.drop_element(id);
+        }
+    }
+    key_with(&prepared, &stereo)
+}
+
+/// The key for one choice of stereo elements.
+fn key_with(prepared: &Prepared, stereo: &StereoSet) -> String {
+    let ranks = ranking::canonical_ranks(prepared, stereo);
+    writer::write(prepared, stereo, &ranks)
+}
+
+#[cfg(test)]
+mod tests;

@@ -1,1 +1,0 @@
-//! Symmetry numbers (external x internal rotation) and optical isomer counts from the graph.

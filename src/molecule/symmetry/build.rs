@@ -1,0 +1,363 @@
+//! From a [`Molecule`] to the hydrogen-explicit labelled graph with lone pairs and stereo units.
+//!
+//! Implicit hydrogens become vertices. A lone pair becomes a vertex of its own on atoms whose
+//! shape it decides: pyramidal three-connected N, P, As, O+, S+ (so ammonia is C3v, not D3h),
+//! sulfoxide-type S and Se, and two-connected imine-type N and P (so that the lone pair takes
+//! a place in the cis/trans unit of `C=N`). Bond colours are the Kekulé order, or one shared
+//! colour for aromatic bonds (as written or as perceived), so benzene keeps its six-fold axis.
+
+use petgraph::graph::NodeIndex;
+use std::collections::HashMap;
+
+use super::cage::orient_cage;
+use super::labelled::{Anchor, LabelledGraph, StereoUnit, UnitKind};
+use super::partition::Partition;
+use crate::molecule::aromaticity::perceive_aromaticity;
+use crate::molecule::graph::{BondDirection, ChiralTag, Molecule, StereoNeighbour};
+use crate::molecule::rings::RingInfo;
+
+/// Bond colour shared by all aromatic bonds.
+const AROMATIC: u8 = 5;
+
+/// The labelled graph of a molecule and what was noticed while building it.
+#[derive(Debug, Clone)]
+pub(crate) struct Built {
+    pub graph: LabelledGraph,
+    pub notes: Vec<String>,
+    /// Whether some ring of four or more atoms holds an sp3 (four-connected) atom, so that
+    /// the real ring may pucker below the flat-graph symmetry.
+    pub puckerable_ring: bool,
+}
+
+/// Elements whose four-connected atoms are treated as tetrahedral (main-group B to Te).
+fn tetrahedral_element(z: u8) -> bool {
+    matches!(z, 5..=8 | 14..=16 | 32..=34 | 50..=52)
+}
+
+/// The lone-pair kind an atom gets, if any: (kind for a four-reference unit, or none when the
+/// lone pair only completes a double-bond end).
+fn lone_pair(z: u8, charge: i8, degree: usize, doubles: usize, aromatic: bool) -> Option<bool> {
+    if aromatic {
+        return None;
+    }
+    match (z, charge, degree, doubles) {
+        (7 | 15 | 33, 0, 3, 0) | (8 | 16 | 34, 1, 3, 0) | (16 | 34, 0, 3, 1) => Some(true),
+        (7 | 15, 0, 2, 1) => Some(false),
+        _ => None,
+    }
+}
+
+/// Builds the labelled graph of `mol`.
+pub(crate) fn build(mol: &Molecule) -> Built {
+    let mut notes = Vec::new();
+    let mut perceived = mol.clone();
+    let rings = RingInfo::perceive(mol);
+    perceive_aromaticity(&mut perceived, &rings);
+    let puckerable_ring = rings.rings.iter().any(|r| {
+        r.size() >= 4
+            && r.atoms
+                .iter()
+                .any(|&a| mol.degree(a) + mol.atom(a).hydrogens as usize == 4)
+    });
+    let n0 = mol.atom_count();
+    let mut colours: HashMap<(u8, i8, u16, u8), u32> = HashMap::new();
+    let mut colour_of = |key: (u8, i8, u16, u8)| {
+        let next = colours.len() as u32;
+        *colours.entry(key).or_insert(next)
+    };
+    let mut g = LabelledGraph::default();
+    for v in mol.atoms() {
+        let a = mol.atom(v);
+        let key = (
+            a.element.atomic_number(),
+            a.charge,
+            a.isotope.unwrap_or(0),
+            a.radical_electrons,
+        );
+        g.add_vertex(colour_of(key));
+    }
+    let mut doubles = vec![0usize; n0];
+    for e in mol.graph.edge_indices() {
+        let Some((a, b)) = mol.graph.edge_endpoints(e) else {
+            continue;
+        };
+        let bond = &mol.graph[e];
+        let aromatic = bond.aromatic || perceived.graph[e].aromatic;
+        let colour = if aromatic {
+            AROMATIC
+        } else {
+            bond.order.valence()
+        };
+        if colour == 2 {
+            doubles[a.index()] += 1;
+            doubles[b.index()] += 1;
+        }
+        g.add_edge(a.index() as u32, b.index() as u32, colour);
+    }
+    let hydrogen = colour_of((1, 0, 0, 0));
+    let lone_pair_colour = colour_of((0, 0, 0, 0));
+    let mut first_h = vec![None; n0];
+    let mut pyramid = vec![None; n0];
+    for v in mol.atoms() {
+        let a = mol.atom(v);
+        for j in 0..a.hydrogens {
+            let h = g.add_vertex(hydrogen);
+            g.add_edge(v.index() as u32, h, 1);
+            if j == 0 {
+                first_h[v.index()] = Some(h);
+            }
+        }
+        let degree = g.adj[v.index()].len();
+        let aromatic = a.aromatic || perceived.atom(v).aromatic;
+        let z = a.element.atomic_number();
+        if let Some(four) = lone_pair(z, a.charge, degree, doubles[v.index()], aromatic) {
+            let lp = g.add_vertex(lone_pair_colour);
+            g.add_edge(v.index() as u32, lp, 0);
+            if four {
+                let inverts = z == 7 || (z == 8 && a.charge == 1);
+                pyramid[v.index()] = Some((lp, inverts));
+            }
+        }
+    }
+    g.finish();
+    let mut root = Partition::by_colour(&g);
+    root.refine(&g);
+    let by_cell = |list: &mut Vec<u32>| list.sort_by_key(|&x| (root.cell_of[x as usize], x));
+
+    let cage = cage_vertices(&g);
+    let mut cage_failed = false;
+    for &start in &cage.starts {
+        match orient_cage(&g, start) {
+            Some(found) => g
+                .units
+                .extend(found.into_iter().map(|(v, order)| StereoUnit {
+                    anchor: Anchor::Atom(v),
+                    refs: order.to_vec(),
+                    kind: UnitKind::Cage,
+                    specified: false,
+                })),
+            None => cage_failed = true,
+        }
+    }
+    if cage_failed {
+        notes.push(
+            "a closed three-connected cage could not be oriented; its mirror images are \
+             counted as rotations, so sigma may be twice too large"
+                .to_string(),
+        );
+    }
+    let mut hypervalent = false;
+    for v in 0..n0 {
+        let degree = g.adj[v].len();
+        let z = mol.atom(NodeIndex::new(v)).element.atomic_number();
+        if degree > 4 {
+            hypervalent = true;
+        }
+        if degree != 4 || !tetrahedral_element(z) {
+            continue;
+        }
+        let mut refs: Vec<u32> = g.adj[v].iter().map(|e| e.0).collect();
+        by_cell(&mut refs);
+        let kind = match pyramid[v] {
+            Some((_, true)) => UnitKind::InvertingPyramid,
+            Some((_, false)) => UnitKind::StablePyramid,
+            None => UnitKind::Tetrahedral,
+        };
+        let written = written_centre(mol, v, &first_h, pyramid[v].map(|p| p.0));
+        let specified = written.as_ref().is_some_and(|w| {
+            let mut a = w.clone();
+            let mut b = refs.clone();
+            a.sort_unstable();
+            b.sort_unstable();
+            a == b
+        });
+        g.units.push(StereoUnit {
+            anchor: Anchor::Atom(v as u32),
+            refs: if specified {
+                written.unwrap_or(refs)
+            } else {
+                refs
+            },
+            kind,
+            specified,
+        });
+    }
+    if hypervalent {
+        notes.push(
+            "atoms with five or more neighbours are not given a shape; rotations that the \
+             real geometry forbids may be counted there"
+                .to_string(),
+        );
+    }
+    double_bond_units(mol, &mut g, &cage.member, &by_cell);
+    g.finish();
+    Built {
+        graph: g,
+        notes,
+        puckerable_ring,
+    }
+}
+
+/// Vertices of components in which every vertex has degree 3.
+struct Cages {
+    member: Vec<bool>,
+    starts: Vec<u32>,
+}
+
+fn cage_vertices(g: &LabelledGraph) -> Cages {
+    let n = g.len();
+    let mut seen = vec![false; n];
+    let mut member = vec![false; n];
+    let mut starts = Vec::new();
+    for s in 0..n {
+        if seen[s] {
+            continue;
+        }
+        let mut stack = vec![s as u32];
+        let mut comp = Vec::new();
+        seen[s] = true;
+        while let Some(v) = stack.pop() {
+            comp.push(v);
+            for &(w, _) in &g.adj[v as usize] {
+                if !seen[w as usize] {
+                    seen[w as usize] = true;
+                    stack.push(w);
+                }
+            }
+        }
+        if comp.len() >= 4 && comp.iter().all(|&v| g.degree(v) == 3) {
+            for &v in &comp {
+                member[v as usize] = true;
+            }
+            starts.push(s as u32);
+        }
+    }
+    Cages { member, starts }
+}
+
+/// The references of a chiral centre as written, reordered so that an even permutation
+/// means the same handedness as SMILES `@` (anticlockwise seen from the first).
+fn written_centre(
+    mol: &Molecule,
+    v: usize,
+    first_h: &[Option<u32>],
+    lone_pair: Option<u32>,
+) -> Option<Vec<u32>> {
+    let centre = mol.chiral_centres.iter().find(|c| c.atom.index() == v)?;
+    let clockwise = match centre.tag {
+        ChiralTag::Anticlockwise => false,
+        ChiralTag::Clockwise => true,
+        ChiralTag::Other { class, number } if &class == b"TH" && number <= 2 => number == 2,
+        ChiralTag::Other { .. } => return None,
+    };
+    let mut refs = Vec::with_capacity(4);
+    for n in &centre.neighbours {
+        refs.push(match n {
+            StereoNeighbour::Atom(a) => a.index() as u32,
+            StereoNeighbour::ImplicitHydrogen => first_h[v]?,
+        });
+    }
+    if refs.len() == 3 {
+        // OpenSMILES: a lone pair stands where an implicit hydrogen would, right after the
+        // atom written before the centre (or first when nothing precedes it).
+        let lp = lone_pair?;
+        let column = mol.atom(NodeIndex::new(v)).column;
+        let preceded = (refs[0] as usize) < mol.atom_count()
+            && mol.atom(NodeIndex::new(refs[0] as usize)).column < column;
+        refs.insert(usize::from(preceded), lp);
+    }
+    if refs.len() != 4 {
+        return None;
+    }
+    if clockwise {
+        refs.swap(2, 3);
+    }
+    Some(refs)
+}
+
+/// Which neighbour of `x` (among `pair`) is drawn "up" by `/` and `\` bonds, if written.
+fn up_neighbour(mol: &Molecule, x: u32, pair: [u32; 2]) -> Option<[u32; 2]> {
+    let n0 = mol.atom_count() as u32;
+    for (i, &p) in pair.iter().enumerate() {
+        if p >= n0 || x >= n0 {
+            continue;
+        }
+        let e = mol
+            .graph
+            .find_edge(NodeIndex::new(x as usize), NodeIndex::new(p as usize))?;
+        if let Some((from, d)) = mol.graph[e].direction {
+            let up = (d == BondDirection::Up) == (from.index() as u32 == x);
+            let other = pair[1 - i];
+            return Some(if up { [p, other] } else { [other, p] });
+        }
+    }
+    None
+}
+
+/// Adds a unit for every non-aromatic double bond or cumulene whose two ends have three
+/// neighbours each (lone pairs included), except inside cages.
+fn double_bond_units(
+    mol: &Molecule,
+    g: &mut LabelledGraph,
+    cage: &[bool],
+    by_cell: &dyn Fn(&mut Vec<u32>),
+) {
+    let n0 = mol.atom_count() as u32;
+    let double_to = |g: &LabelledGraph, x: u32| -> Vec<u32> {
+        g.adj[x as usize]
+            .iter()
+            .filter(|e| e.1 == 2)
+            .map(|e| e.0)
+            .collect()
+    };
+    let mut units = Vec::new();
+    for x in 0..n0 {
+        let dx = double_to(g, x);
+        if g.degree(x) != 3 || dx.len() != 1 || cage[x as usize] {
+            continue;
+        }
+        let (mut prev, mut cur) = (x, dx[0]);
+        let mut steps = 0;
+        while g.degree(cur) == 2 && double_to(g, cur).len() == 2 && steps < n0 {
+            let next = g.adj[cur as usize]
+                .iter()
+                .map(|e| e.0)
+                .find(|&w| w != prev)
+                .unwrap_or(prev);
+            prev = cur;
+            cur = next;
+            steps += 1;
+        }
+        let z = cur;
+        if z <= x || g.degree(z) != 3 || double_to(g, z).len() != 1 || cage[z as usize] {
+            continue;
+        }
+        let side = |end: u32, towards: u32| -> Vec<u32> {
+            let mut s: Vec<u32> = g.adj[end as usize]
+                .iter()
+                .map(|e| e.0)
+                .filter(|&w| w != towards)
+                .collect();
+            by_cell(&mut s);
+            s
+        };
+        let (sx, sz) = (side(x, dx[0]), side(z, prev));
+        let (Ok(px), Ok(pz)) = (<[u32; 2]>::try_from(sx), <[u32; 2]>::try_from(sz)) else {
+            continue;
+        };
+        let written = (steps % 2 == 0)
+            .then(|| Some((up_neighbour(mol, x, px)?, up_neighbour(mol, z, pz)?)))
+            .flatten();
+        let ((a, b), specified) = match written {
+            Some(w) => (w, true),
+            None => ((px, pz), false),
+        };
+        units.push(StereoUnit {
+            anchor: Anchor::Bond(x, z),
+            refs: vec![a[0], a[1], b[0], b[1]],
+            kind: UnitKind::DoubleBond,
+            specified,
+        });
+    }
+    g.units.extend(units);
+}

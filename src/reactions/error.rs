@@ -1,0 +1,92 @@
+//! Errors of the reaction layer: building a CBH reaction, pricing it, loading reference species.
+
+use std::path::PathBuf;
+
+use super::cbh::Rung;
+
+/// Why a reaction could not be built or priced.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum ReactionError {
+    /// The molecule has no heavy atom (for example `[H][H]`): there is nothing to fragment.
+    #[error("the molecule has no heavy atom; a CBH reaction needs at least one")]
+    NoHeavyAtom,
+    /// The input holds more than one component (`.`); each component needs its own reaction.
+    #[error("the molecule has {components} separate components; build one reaction per component")]
+    Disconnected {
+        /// Number of connected components.
+        components: usize,
+    },
+    /// A hydrogen stays a node of its own after folding (isotope, charge, atom class or a bond
+    /// to another hydrogen), so it cannot become a hydrogen cap.
+    #[error("hydrogen atom {atom} (0-based node) is labelled or bonded to hydrogen; CBH fragments need plain hydrogens")]
+    LabelledHydrogen {
+        /// Node index of the hydrogen in the folded molecule.
+        atom: usize,
+    },
+    /// Capping a fragment atom needs more hydrogens than an atom can hold.
+    #[error("atom {atom} (0-based node) would need {needed} hydrogen caps, more than an atom holds")]
+    TooManyCaps {
+        /// Node index of the atom.
+        atom: usize,
+        /// Hydrogens the cap would need.
+        needed: u32,
+    },
+    /// A built reaction failed one of the rung's conservation checks (a defect of the builder,
+    /// reported rather than returned as a wrong reaction).
+    #[error("{rung} reaction fails its check on {quantity}: {detail}")]
+    Unbalanced {
+        /// The rung.
+        rung: Rung,
+        /// What is conserved (`elements`, `charge`, `heavy-atom bond types`, ...).
+        quantity: &'static str,
+        /// The first difference found.
+        detail: String,
+    },
+    /// The target ended up with a coefficient other than 1 on the reactant side or 0 (cancelled).
+    #[error("{rung} reaction gives the target a net coefficient of {coefficient}")]
+    TargetCoefficient {
+        /// The rung.
+        rung: Rung,
+        /// Net coefficient (products minus reactants).
+        coefficient: i64,
+    },
+    /// No heat of formation is known for a species of the reaction.
+    #[error("no heat of formation for {smiles}: not in the reference table and no fallback value")]
+    MissingHeat {
+        /// Canonical SMILES of the species.
+        smiles: String,
+    },
+}
+
+/// Why the reference-species table could not be read.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum ReferenceError {
+    /// The file could not be read.
+    #[error("{}: cannot read: {message}", .path.display())]
+    Io {
+        /// The file.
+        path: PathBuf,
+        /// The system's message.
+        message: String,
+    },
+    /// TOML syntax or a field of the wrong type.
+    #[error("{}: {message}", .path.display())]
+    Syntax {
+        /// The file.
+        path: PathBuf,
+        /// The parser's message (with line and column when it gives them).
+        message: String,
+    },
+    /// An entry is incomplete or wrong.
+    #[error("{}: entry {entry} ({smiles}): {problem}", .path.display())]
+    Entry {
+        /// The file.
+        path: PathBuf,
+        /// 1-based position of the entry in the file.
+        entry: usize,
+        /// The SMILES as written.
+        smiles: String,
+        /// What is wrong.
+        problem: String,
+    },
+}

@@ -1,0 +1,76 @@
+//! Reports: turns results into tables, JSON or CSV; every input record becomes one row.
+
+pub mod structure;
+pub mod thermo;
+
+use crate::input::Place;
+
+/// Output format of a report.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, clap::ValueEnum)]
+pub enum OutputFormat {
+    /// Human-readable tables.
+    #[default]
+    Table,
+    /// One JSON document (an array with one object per input record).
+    Json,
+    /// Comma-separated values with a header row.
+    Csv,
+}
+
+/// A failed record: where it was, what it said, and why it failed (multi-line for SMILES errors).
+#[derive(Debug, Clone, serde::Serialize)]
+pub struct RowError {
+    /// Where the record came from.
+    pub place: Place,
+    /// The input as written.
+    pub input: String,
+    /// The error, as printed (may hold the input with a caret line).
+    pub message: String,
+}
+
+/// The outcome for one input record.
+#[derive(Debug, Clone, serde::Serialize)]
+#[serde(untagged)]
+pub enum Row<T> {
+    /// A result.
+    Done(T),
+    /// An error.
+    Failed {
+        /// The error.
+        error: RowError,
+    },
+}
+
+/// Writes a CSV document from a header and rows of cells.
+pub fn write_csv(header: &[&str], rows: &[Vec<String>]) -> String {
+    let mut w = csv::Writer::from_writer(Vec::new());
+    // Writing to a Vec cannot fail except on out-of-memory; keep the error visible anyway.
+    let mut problems = Vec::new();
+    if let Err(e) = w.write_record(header) {
+        problems.push(e.to_string());
+    }
+    for r in rows {
+        if let Err(e) = w.write_record(r) {
+            problems.push(e.to_string());
+        }
+    }
+    let bytes = w.into_inner().unwrap_or_default();
+    let mut out = String::from_utf8_lossy(&bytes).into_owned();
+    for p in problems {
+        out.push_str(&format!("# csv error: {p}\n"));
+    }
+    out
+}
+
+/// Formats a float with a fixed number of decimals, or an empty cell for NaN/None.
+pub fn cell(value: Option<f64>, decimals: usize) -> String {
+    match value {
+        Some(v) if v.is_finite() => format!("{v:.decimals$}"),
+        _ => String::new(),
+    }
+}
+
+/// The cautions printed with anything that may inform process-safety decisions.
+pub const SAFETY_NOTE: &str = "Screening estimates only (gas phase, group additivity; errors of \
+several kJ/mol are usual). Not a substitute for calorimetry or a qualified process-safety review; \
+follow local codes and licensed practice.";

@@ -1,0 +1,393 @@
+//! Group-additivity estimate of one molecule: groups + corrections + ring corrections + symmetry.
+
+use petgraph::graph::NodeIndex;
+
+use super::quantity::{Quantity, GAS_CONSTANT};
+use crate::groups::assign::{assign_groups, generic_stand_in};
+use crate::groups::interactions::count_interactions;
+use crate::groups::ring_corrections::{RingCorrectionIndex, RingMatch, RingPatternError};
+use crate::groups::table::{GroupTables, TableError, ThermoIncrement, CP_TEMPERATURES_K};
+use crate::groups::GroupKey;
+use crate::molecule::PerceivedMolecule;
+
+/// Extra uncertainty added to a group that stands in for a missing one: our choice, about the
+/// spread between neighbouring groups of one family (kJ/mol and J/(mol K)).
+const STAND_IN_EXTRA_UNC: (f64, f64, f64) = (4.0, 4.0, 2.0);
+/// Extra uncertainty of a ring correction built from stand-ins: our choice (kJ/mol,
+/// J/(mol K), J/(mol K)); ring strain does not add up exactly over fused rings.
+const RING_FALLBACK_EXTRA_UNC: (f64, f64, f64) = (8.0, 8.0, 4.0);
+
+/// The symmetry used for the entropy term -R ln(sigma) + R ln(n).
+#[derive(Debug, Clone, PartialEq, Eq, serde::Serialize)]
+pub struct SymmetryUsed {
+    /// Total symmetry number sigma (external x internal).
+    pub total: u64,
+    /// External (rigid-rotation) part.
+    pub external: u64,
+    /// Internal-rotor part.
+    pub internal: u64,
+    /// Number of optical isomers n.
+    pub optical_isomers: u8,
+    /// Conventions and assumptions.
+    pub notes: Vec<String>,
+}
+
+fn graph_symmetry(p: &PerceivedMolecule) -> SymmetryUsed {
+    let _ = p;
+    SymmetryUsed {
+        total: 1,
+        external: 1,
+        internal: 1,
+        optical_isomers: 1,
+        notes: vec!["symmetry not yet computed (placeholder)".into()],
+    }
+}
+
+/// What a term of the sum is.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+pub enum TermKind {
+    /// A Benson group.
+    Group,
+    /// A non-ring correction (gauche, cis, ...).
+    Correction,
+    /// A ring correction.
+    Ring,
+}
+
+/// One line of the explain view: a table entry, how often it counts, and where it comes from.
+#[derive(Debug, Clone, serde::Serialize)]
+pub struct Term {
+    /// Group, correction or ring.
+    pub kind: TermKind,
+    /// Group key, correction name or ring name.
+    pub label: String,
+    /// Occurrences.
+    pub count: u32,
+    /// Values per occurrence (SI).
+    pub per_unit: ThermoIncrement,
+    /// Source of the values.
+    pub source: String,
+    /// Stand-in or other remark, if any.
+    pub note: Option<String>,
+}
+
+/// Options of an estimate.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct EstimateOptions {
+    /// Symmetry number and optical-isomer count given by the user instead of the graph's.
+    pub symmetry_override: Option<(u64, u8)>,
+}
+
+/// Why a molecule could not be estimated.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum EstimateError {
+    /// An atom has no Benson type.
+    #[error("atom {atom} ({element}, column {column}): {reason}")]
+    Untyped {
+        /// 1-based atom number.
+        atom: usize,
+        /// Element symbol.
+        element: String,
+        /// 0-based column in the input SMILES.
+        column: usize,
+        /// Why.
+        reason: String,
+    },
+    /// Groups missing from the tables, with no stand-in either.
+    #[error("groups not in the tables: {}", .0.join(", "))]
+    MissingGroups(Vec<String>),
+    /// No atoms, or several disconnected molecules.
+    #[error("{0}")]
+    NotOneMolecule(String),
+}
+
+/// Problems setting up the estimator from tables.
+#[derive(Debug, thiserror::Error)]
+pub enum SetupError {
+    /// A table could not be loaded.
+    #[error(transparent)]
+    Table(#[from] TableError),
+    /// A ring entry's SMILES is not a usable pattern.
+    #[error(transparent)]
+    RingPattern(#[from] RingPatternError),
+}
+
+/// The group-additivity estimate of one molecule.
+#[derive(Debug, Clone, serde::Serialize)]
+pub struct ThermoEstimate {
+    /// Every group, correction and ring term with its count.
+    pub terms: Vec<Term>,
+    /// Visible warnings: stand-ins, assumptions, missing properties.
+    pub flags: Vec<String>,
+    /// Symmetry number and optical isomers used for the entropy.
+    pub symmetry: SymmetryUsed,
+    /// Whether the symmetry came from the user.
+    pub symmetry_overridden: bool,
+    /// Hf298, kJ/mol.
+    pub hf298_kj: Quantity,
+    /// Hf298 without ring corrections (Benson's strain-free sum), kJ/mol.
+    pub strain_free_hf298_kj: Quantity,
+    /// S298, J/(mol K), if every term gives an entropy.
+    pub s298_j: Option<Quantity>,
+    /// Cp at [`CP_TEMPERATURES_K`], J/(mol K), if every term gives one.
+    pub cp_j: Option<[Quantity; 7]>,
+}
+
+/// A summed property with its uncertainty.
+#[derive(Default, Clone, Copy)]
+struct Sum {
+    value: f64,
+    variance: f64,
+    missing: bool,
+}
+
+impl Sum {
+    fn add(&mut self, value: f64, unc: f64, count: f64, known: bool) {
+        if !known || !value.is_finite() {
+            self.missing = true;
+            return;
+        }
+        self.value += count * value;
+        // Same entry counted n times: errors add linearly within, in quadrature across entries.
+        self.variance += (count * unc).powi(2);
+    }
+    fn quantity(&self) -> Option<Quantity> {
+        (!self.missing).then(|| Quantity::new(self.value, self.variance.sqrt()))
+    }
+}
+
+/// Tables plus the ring-correction index: everything needed to estimate molecules.
+#[derive(Debug, Clone)]
+pub struct GroupAdditivity {
+    /// The group, correction and ring tables.
+    pub tables: GroupTables,
+    /// Ring entries prepared for matching.
+    pub ring_index: RingCorrectionIndex,
+}
+
+fn inflate(mut v: ThermoIncrement, extra: (f64, f64, f64)) -> ThermoIncrement {
+    v.unc_hf_kj = v.unc_hf_kj.hypot(extra.0);
+    v.unc_s_j = v.unc_s_j.hypot(extra.1);
+    v.unc_cp_j = v.unc_cp_j.hypot(extra.2);
+    v
+}
+
+impl GroupAdditivity {
+    /// Uses the given tables.
+    pub fn new(tables: GroupTables) -> Result<GroupAdditivity, SetupError> {
+        let ring_index = RingCorrectionIndex::new(&tables)?;
+        Ok(GroupAdditivity { tables, ring_index })
+    }
+
+    /// The bundled tables of the repository's group-tables/ directory.
+    pub fn bundled() -> Result<GroupAdditivity, SetupError> {
+        GroupAdditivity::new(GroupTables::bundled()?)
+    }
+
+    /// Estimates Hf298, S298 and Cp(T) of one molecule.
+    pub fn estimate(
+        &self,
+        p: &PerceivedMolecule,
+        options: &EstimateOptions,
+    ) -> Result<ThermoEstimate, EstimateError> {
+        if p.mol.atom_count() == 0 {
+            return Err(EstimateError::NotOneMolecule("no atoms".into()));
+        }
+        if p.mol.component_count() > 1 {
+            return Err(EstimateError::NotOneMolecule(
+                "several disconnected molecules: estimate each on its own".into(),
+            ));
+        }
+        let assignment = assign_groups(p).map_err(|u| {
+            let atom = p.mol.atom(u.atom);
+            EstimateError::Untyped {
+                atom: u.atom.index() + 1,
+                element: atom.element.to_string(),
+                column: atom.column,
+                reason: u.reason,
+            }
+        })?;
+        let mut terms: Vec<Term> = Vec::new();
+        let mut flags: Vec<String> = Vec::new();
+        let mut missing: Vec<String> = Vec::new();
+
+        // Groups, counted by key in first-seen order.
+        let mut counted: Vec<(GroupKey, u32, NodeIndex)> = Vec::new();
+        for g in &assignment.groups {
+            match counted.iter_mut().find(|(k, _, _)| *k == g.key) {
+                Some((_, n, _)) => *n += 1,
+                None => counted.push((g.key.clone(), 1, g.atom)),
+            }
+        }
+        if counted.is_empty() {
+            return Err(EstimateError::NotOneMolecule(
+                "no group centre (only hydrogens and halogens)".into(),
+            ));
+        }
+        for (key, count, atom) in counted {
+            let found = self.tables.group(&key).filter(|e| e.values.known.hf);
+            if let Some(entry) = found {
+                terms.push(Term {
+                    kind: TermKind::Group,
+                    label: key.to_string(),
+                    count,
+                    per_unit: entry.values,
+                    source: entry.source.clone(),
+                    note: entry
+                        .same_as
+                        .as_ref()
+                        .map(|s| format!("taken equal to {s}")),
+                });
+                continue;
+            }
+            let stand_in = generic_stand_in(&key).and_then(|k| {
+                self.tables
+                    .group(&k)
+                    .filter(|e| e.values.known.hf)
+                    .map(|e| (k, e))
+            });
+            match stand_in {
+                Some((k, entry)) => {
+                    flags.push(format!(
+                        "group {key} is not in the tables; {k} stands in (uncertainty widened)"
+                    ));
+                    terms.push(Term {
+                        kind: TermKind::Group,
+                        label: key.to_string(),
+                        count,
+                        per_unit: inflate(entry.values, STAND_IN_EXTRA_UNC),
+                        source: entry.source.clone(),
+                        note: Some(format!("stand-in: {k}")),
+                    });
+                }
+                None => missing.push(format!("{key} (atom {})", atom.index() + 1)),
+            }
+        }
+        if !missing.is_empty() {
+            return Err(EstimateError::MissingGroups(missing));
+        }
+
+        // Non-ring corrections.
+        let interactions = count_interactions(p, &assignment.types);
+        flags.extend(interactions.notes);
+        for c in interactions.counts {
+            match self.tables.correction(c.name) {
+                Some(entry) => terms.push(Term {
+                    kind: TermKind::Correction,
+                    label: c.name.to_string(),
+                    count: c.count,
+                    per_unit: entry.values,
+                    source: entry.source.clone(),
+                    note: None,
+                }),
+                None => flags.push(format!(
+                    "{} x {} counted, but the tables have no `{}` correction: not applied",
+                    c.count, c.name, c.name
+                )),
+            }
+        }
+
+        // Ring corrections.
+        let entries = self.tables.rings();
+        for applied in self.ring_index.apply(p, &self.tables) {
+            let (note, extra) = match &applied.how {
+                RingMatch::Exact => (None, None),
+                RingMatch::Fallback(text) => {
+                    flags.push(text.clone());
+                    (
+                        Some("fallback stand-in".to_string()),
+                        Some(RING_FALLBACK_EXTRA_UNC),
+                    )
+                }
+            };
+            if applied.entries.is_empty() {
+                continue;
+            }
+            for &i in &applied.entries {
+                let entry = &entries[i];
+                let values = match extra {
+                    Some(x) => inflate(entry.values, x),
+                    None => entry.values,
+                };
+                match terms
+                    .iter_mut()
+                    .find(|t| t.kind == TermKind::Ring && t.label == entry.name && t.note == note)
+                {
+                    Some(t) => t.count += 1,
+                    None => terms.push(Term {
+                        kind: TermKind::Ring,
+                        label: entry.name.clone(),
+                        count: 1,
+                        per_unit: values,
+                        source: entry.source.clone(),
+                        note: note.clone(),
+                    }),
+                }
+            }
+        }
+
+        // Sums.
+        let mut hf = Sum::default();
+        let mut hf_free = Sum::default();
+        let mut s = Sum::default();
+        let mut cp = [Sum::default(); 7];
+        for t in &terms {
+            let v = &t.per_unit;
+            let n = t.count as f64;
+            hf.add(v.hf_kj, v.unc_hf_kj, n, v.known.hf);
+            if t.kind != TermKind::Ring {
+                hf_free.add(v.hf_kj, v.unc_hf_kj, n, v.known.hf);
+            }
+            s.add(v.s_j, v.unc_s_j, n, v.known.s);
+            for (k, c) in cp.iter_mut().enumerate() {
+                c.add(v.cp_j[k], v.unc_cp_j, n, v.known.cp);
+            }
+        }
+        let (symmetry, overridden) = match options.symmetry_override {
+            Some((sigma, n)) => {
+                let mut info = graph_symmetry(p);
+                info.total = sigma.max(1);
+                info.external = sigma.max(1);
+                info.internal = 1;
+                info.optical_isomers = n.max(1);
+                (info, true)
+            }
+            None => (graph_symmetry(p), false),
+        };
+        let s298 = s.quantity().map(|q| {
+            let sym = -GAS_CONSTANT * (symmetry.total.max(1) as f64).ln()
+                + GAS_CONSTANT * (symmetry.optical_isomers.max(1) as f64).ln();
+            Quantity::new(q.value + sym, q.uncertainty)
+        });
+        if s298.is_none() {
+            flags.push("a term has no entropy in the tables: S298 not estimated".into());
+        }
+        let cp_j = if cp.iter().any(|c| c.missing) {
+            flags.push("a term has no heat capacity in the tables: Cp(T) not estimated".into());
+            None
+        } else {
+            let mut out = [Quantity::new(0.0, 0.0); 7];
+            for (o, c) in out.iter_mut().zip(cp.iter()) {
+                *o = Quantity::new(c.value, c.variance.sqrt());
+            }
+            Some(out)
+        };
+        let hf298 = hf.quantity().unwrap_or(Quantity::new(f64::NAN, f64::NAN));
+        let strain_free = hf_free
+            .quantity()
+            .unwrap_or(Quantity::new(f64::NAN, f64::NAN));
+        Ok(ThermoEstimate {
+            terms,
+            flags,
+            symmetry,
+            symmetry_overridden: overridden,
+            hf298_kj: hf298,
+            strain_free_hf298_kj: strain_free,
+            s298_j: s298,
+            cp_j,
+        })
+    }
+}
+
+/// The heat-capacity temperatures, K (re-exported for reports).
+pub const CP_TEMPERATURES: [f64; 7] = CP_TEMPERATURES_K;

@@ -1,0 +1,8 @@
+//! Thermochemistry from groups: Hf298, S298, Cp(T), H(T), S(T), G(T) with uncertainties.
+
+pub mod estimate;
+pub mod quantity;
+pub mod temperature;
+
+pub use estimate::{EstimateError, EstimateOptions, GroupAdditivity, ThermoEstimate};
+pub use quantity::{EnergyUnit, Quantity};

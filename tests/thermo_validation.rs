@@ -1,0 +1,190 @@
+//! Group additivity against measured gas-phase data (CRC Handbook and ATcT 1.112 values carried by
+//! the `chemicals` package; see tests/reference/thermo_reference.tsv for provenance).
+//!
+//! Prints coverage and mean absolute errors by class and the 15 worst species, and asserts the
+//! thresholds of the group-additivity issue. Species that a table entry was derived from
+//! (`derived_from` names their CAS number) are left out of the error statistics, since their
+//! error is zero by construction.
+
+mod common;
+
+use std::collections::HashSet;
+
+use common::Table;
+use ringheat::molecule::PerceivedMolecule;
+use ringheat::thermo::estimate::{EstimateOptions, GroupAdditivity};
+
+const KJ_PER_KCAL: f64 = 4.184;
+
+struct Outcome {
+    cas: String,
+    name: String,
+    class: String,
+    hetero: bool,
+    cho_only: bool,
+    hf_err_kcal: f64,
+    s_err_cal: Option<f64>,
+    cp_err_cal: Option<f64>,
+    flagged: bool,
+}
+
+fn cas_numbers(text: &str) -> Vec<String> {
+    text.split(|c: char| !(c.is_ascii_digit() || c == '-'))
+        .filter(|w| {
+            let parts: Vec<&str> = w.split('-').collect();
+            parts.len() == 3
+                && parts.iter().all(|p| !p.is_empty())
+                && parts[1].len() == 2
+                && parts[2].len() == 1
+        })
+        .map(str::to_string)
+        .collect()
+}
+
+fn mae(values: impl Iterator<Item = f64>) -> (f64, usize) {
+    let (sum, n) = values.fold((0.0, 0usize), |(s, n), v| (s + v.abs(), n + 1));
+    (if n == 0 { 0.0 } else { sum / n as f64 }, n)
+}
+
+#[test]
+fn group_additivity_matches_measured_gas_phase_data() {
+    let engine = GroupAdditivity::bundled().expect("bundled tables load");
+    // CAS numbers that table values were derived from.
+    let mut derived: HashSet<String> = HashSet::new();
+    for g in engine.tables.groups() {
+        if let Some(d) = &g.derived_from {
+            derived.extend(cas_numbers(d));
+        }
+    }
+    for c in engine.tables.corrections() {
+        if let Some(d) = &c.derived_from {
+            derived.extend(cas_numbers(d));
+        }
+    }
+    for r in engine.tables.rings() {
+        if let Some(d) = &r.derived_from {
+            derived.extend(cas_numbers(d));
+        }
+    }
+
+    let table = Table::read("thermo_reference.tsv");
+    let col = |n: &str| table.column(n);
+    let (c_cas, c_name, c_smiles, c_hf, c_s, c_cp, c_class, c_het, c_el) = (
+        col("cas"),
+        col("name"),
+        col("smiles"),
+        col("hf298_kj"),
+        col("s298_j"),
+        col("cp298_j"),
+        col("class"),
+        col("hetero"),
+        col("elements"),
+    );
+    let mut outcomes = Vec::new();
+    let mut failures: Vec<(String, String)> = Vec::new();
+    let mut derived_rows = 0;
+    for row in &table.rows {
+        let cas = row.get(c_cas).to_string();
+        if derived.contains(&cas) {
+            derived_rows += 1;
+            continue;
+        }
+        let name = row.get(c_name).to_string();
+        let p = match PerceivedMolecule::from_smiles(row.get(c_smiles)) {
+            Ok(p) => p,
+            Err(e) => {
+                failures.push((name, format!("parse: {e}")));
+                continue;
+            }
+        };
+        let est = match engine.estimate(&p, &EstimateOptions::default()) {
+            Ok(e) => e,
+            Err(e) => {
+                failures.push((name, e.to_string()));
+                continue;
+            }
+        };
+        let measured = |c: usize| row.get(c).parse::<f64>().ok();
+        let Some(hf) = measured(c_hf) else { continue };
+        let s_err = measured(c_s)
+            .zip(est.s298_j)
+            .map(|(m, e)| (e.value - m) / KJ_PER_KCAL);
+        let cp_err = measured(c_cp)
+            .zip(est.cp298_j())
+            .map(|(m, e)| (e.value - m) / KJ_PER_KCAL);
+        outcomes.push(Outcome {
+            cas,
+            name,
+            class: row.get(c_class).to_string(),
+            hetero: row.get(c_het) == "1",
+            cho_only: row.get(c_el).chars().all(|c| "CHO".contains(c)),
+            hf_err_kcal: (est.hf298_kj.value - hf) / KJ_PER_KCAL,
+            s_err_cal: s_err,
+            cp_err_cal: cp_err,
+            flagged: !est.flags.is_empty(),
+        });
+    }
+    let total = outcomes.len() + failures.len();
+    let coverage = outcomes.len() as f64 / total as f64;
+    println!(
+        "reference species: {} ({} more left out: table values were derived from them)",
+        total, derived_rows
+    );
+    println!(
+        "estimated: {} ({:.1} %), flagged estimates among them: {}",
+        outcomes.len(),
+        100.0 * coverage,
+        outcomes.iter().filter(|o| o.flagged).count()
+    );
+    let report = |label: &str, pick: &dyn Fn(&Outcome) -> bool| {
+        let sel: Vec<&Outcome> = outcomes.iter().filter(|o| pick(o)).collect();
+        let (hf, n) = mae(sel.iter().map(|o| o.hf_err_kcal));
+        let (s, ns) = mae(sel.iter().filter_map(|o| o.s_err_cal));
+        let (cp, nc) = mae(sel.iter().filter_map(|o| o.cp_err_cal));
+        println!(
+            "  {label:<12} Hf298 MAE {hf:5.2} kcal/mol (n={n:4})  S298 MAE {s:5.2} cal/(mol K) \
+             (n={ns:4})  Cp298 MAE {cp:5.2} cal/(mol K) (n={nc:4})"
+        );
+        (hf, s, cp)
+    };
+    let (hf_all, s_all, cp_all) = report("all", &|_| true);
+    let (hf_cho, _, _) = report("C/H/O only", &|o| o.cho_only);
+    report("acyclic", &|o| o.class == "acyclic");
+    report("monocyclic", &|o| o.class == "monocyclic");
+    report("polycyclic", &|o| o.class == "polycyclic");
+    report("aromatic", &|o| o.class == "aromatic");
+    report("heteroatom", &|o| o.hetero);
+    report("unflagged", &|o| !o.flagged);
+
+    let mut worst: Vec<&Outcome> = outcomes.iter().collect();
+    worst.sort_by(|a, b| b.hf_err_kcal.abs().total_cmp(&a.hf_err_kcal.abs()));
+    println!("15 largest Hf298 errors (estimate - measured, kcal/mol):");
+    for o in worst.iter().take(15) {
+        println!(
+            "  {:>+7.2}  {} ({}, {})",
+            o.hf_err_kcal, o.name, o.cas, o.class
+        );
+    }
+    let mut reasons: std::collections::BTreeMap<String, usize> = Default::default();
+    for (_, why) in &failures {
+        let key: String = why.chars().take(60).collect();
+        *reasons.entry(key).or_default() += 1;
+    }
+    let mut reasons: Vec<(String, usize)> = reasons.into_iter().collect();
+    reasons.sort_by(|a, b| b.1.cmp(&a.1));
+    println!("most common reasons for no estimate:");
+    for (why, n) in reasons.iter().take(25) {
+        println!("  {n:4}  {why}");
+    }
+
+    // Thresholds of the group-additivity issue.
+    assert!(
+        coverage >= 0.90,
+        "coverage {:.1} % < 90 %",
+        100.0 * coverage
+    );
+    assert!(hf_cho <= 1.0, "C/H/O Hf298 MAE {hf_cho:.2} > 1.0 kcal/mol");
+    assert!(hf_all <= 1.5, "Hf298 MAE {hf_all:.2} > 1.5 kcal/mol");
+    assert!(s_all <= 1.5, "S298 MAE {s_all:.2} > 1.5 cal/(mol K)");
+    assert!(cp_all <= 1.0, "Cp298 MAE {cp_all:.2} > 1.0 cal/(mol K)");
+}
