@@ -19,5 +19,6 @@
 pub mod groups;
 pub mod input;
 pub mod molecule;
+pub mod reactions;
 pub mod report;
 pub mod thermo;

@@ -26,6 +26,7 @@ struct Outcome {
     s_err_cal: Option<f64>,
     cp_err_cal: Option<f64>,
     flagged: bool,
+    detail: String,
 }
 
 fn cas_numbers(text: &str) -> Vec<String> {
@@ -122,7 +123,40 @@ fn group_additivity_matches_measured_gas_phase_data() {
             s_err_cal: s_err,
             cp_err_cal: cp_err,
             flagged: !est.flags.is_empty(),
+            detail: format!(
+                "{}\t{:.2}\t{:.2}\t{}\t{}",
+                row.get(c_smiles),
+                est.hf298_kj.value,
+                hf,
+                est.terms
+                    .iter()
+                    .map(|t| format!("{}x{}", t.count, t.label))
+                    .collect::<Vec<_>>()
+                    .join(" "),
+                est.flags.join(" | ")
+            ),
         });
+    }
+    // Per-species details for whoever improves the tables (not part of the assertions).
+    let dump: String = outcomes
+        .iter()
+        .map(|o| {
+            format!(
+                "{}\t{}\t{}\t{:+.2}\t{}\n",
+                o.cas, o.name, o.class, o.hf_err_kcal, o.detail
+            )
+        })
+        .chain(
+            failures
+                .iter()
+                .map(|(n, why)| format!("-\t{n}\t-\t-\t{why}\n")),
+        )
+        .collect();
+    let dump_path = std::path::Path::new(env!("CARGO_TARGET_TMPDIR")).join("thermo_validation.tsv");
+    if let Err(e) = std::fs::write(&dump_path, dump) {
+        println!("could not write {}: {e}", dump_path.display());
+    } else {
+        println!("per-species details: {}", dump_path.display());
     }
     let total = outcomes.len() + failures.len();
     let coverage = outcomes.len() as f64 / total as f64;

@@ -53,6 +53,7 @@ pub fn run(args: EstimateArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
     }
     let options = EstimateOptions {
         symmetry_override: args.sigma.map(|s| (s, args.optical_isomers.unwrap_or(1))),
+        ..EstimateOptions::default()
     };
     let unit = if args.kcal {
         EnergyUnit::KiloCalorie

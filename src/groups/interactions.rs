@@ -74,10 +74,9 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
                 let n2 = carbon_substituents_except(p, b, a) as u32;
                 gauche += n1 * n2 - n1.min(n2);
             }
-            BondOrder::Single
-                if types.centre(a) == Some("Cb")
-                    && types.centre(b) == Some("Cb")
-                    && bond.aromatic =>
+            _ if types.centre(a) == Some("Cb")
+                && types.centre(b) == Some("Cb")
+                && bond.aromatic =>
             {
                 let substituted = |x: NodeIndex, other: NodeIndex| {
                     mol.neighbours(x).any(|(n, nb)| {

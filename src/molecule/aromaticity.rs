@@ -20,7 +20,9 @@
 //!    through shared single bonds are tested on their perimeter atoms (atoms inside the group,
 //!    like the centre of cycl\[3.3.3\]azine, are left out); when the perimeter passes, every ring
 //!    of the group is aromatic (azulene, the imide rings of pyromellitic diimide). At most
-//!    2048 groups are tried per system, so large polycyclic systems stay cheap.
+//!    1024 groups are tried per system, smallest first, and only groups holding a ring with a
+//!    bond outside the aromatic rings found so far (the pentagons of C60 are skipped: their
+//!    bonds all lie in aromatic hexagons), so large polycyclic systems stay cheap.
 //! 4. Atoms and bonds of aromatic rings are flagged aromatic and every other flag is cleared, so
 //!    a Kekulé input and an aromatic input of the same molecule get the same flags. Bond orders
 //!    are not changed.
@@ -157,7 +159,7 @@ fn perimeter_atoms(rings: &[Ring], group: &[usize]) -> Vec<NodeIndex> {
 }
 
 /// Most groups of fused rings tried per ring system; keeps large polycyclic systems cheap.
-const MAX_FUSED_GROUPS: usize = 2048;
+const MAX_FUSED_GROUPS: usize = 1024;
 
 /// Tries groups of two or more fused candidate rings of one ring system (connected through
 /// shared bonds) and marks every ring of a group whose atoms together pass the Hückel rule.
@@ -174,10 +176,20 @@ fn mark_fused_groups(
             rings[r]
                 .atoms
                 .iter()
-                .all(|a| electrons[a.index()].is_some())
+                .all(|a| electrons.get(a.index()).is_some_and(Option::is_some))
         })
         .collect();
-    if candidates.len() < 2 || candidates.len() > 64 || candidates.iter().all(|&r| aromatic[r]) {
+    // A ring whose bonds all lie in aromatic rings already would change no flag.
+    let covered: std::collections::HashSet<petgraph::graph::EdgeIndex> = members
+        .iter()
+        .filter(|&&r| aromatic[r])
+        .flat_map(|&r| rings[r].bonds.iter().copied())
+        .collect();
+    let open: Vec<bool> = candidates
+        .iter()
+        .map(|&r| !aromatic[r] && rings[r].bonds.iter().any(|b| !covered.contains(b)))
+        .collect();
+    if candidates.len() < 2 || candidates.len() > 64 || !open.contains(&true) {
         return;
     }
     let n = candidates.len();
@@ -189,8 +201,9 @@ fn mark_fused_groups(
         })
         .collect();
     let mut seen = std::collections::HashSet::new();
-    let mut queue: Vec<u64> = (0..n).map(|i| 1u64 << i).collect();
-    while let Some(group) = queue.pop() {
+    // Breadth first, so that smaller groups are tried before larger ones.
+    let mut queue: std::collections::VecDeque<u64> = (0..n).map(|i| 1u64 << i).collect();
+    while let Some(group) = queue.pop_front() {
         if seen.len() >= MAX_FUSED_GROUPS {
             break;
         }
@@ -204,14 +217,14 @@ fn mark_fused_groups(
             if !seen.insert(bigger) {
                 continue;
             }
-            queue.push(bigger);
+            queue.push_back(bigger);
+            if !(0..n).any(|i| bigger >> i & 1 == 1 && open[i] && !aromatic[candidates[i]]) {
+                continue;
+            }
             let in_group: Vec<usize> = (0..n)
                 .filter(|&i| bigger >> i & 1 == 1)
                 .map(|i| candidates[i])
                 .collect();
-            if in_group.iter().all(|&r| aromatic[r]) {
-                continue;
-            }
             if is_huckel(electrons, perimeter_atoms(rings, &in_group).into_iter()) {
                 for r in in_group {
                     aromatic[r] = true;

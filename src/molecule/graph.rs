@@ -13,7 +13,8 @@ pub enum ChiralTag {
     Anticlockwise,
     /// `@@`: clockwise.
     Clockwise,
-    /// Another class (`@TH1`, `@AL2`, `@SP3`, `@TB10`, `@OH25`, ...): kept, not interpreted.
+    /// Another class (`@AL2`, `@SP3`, `@TB10`, `@OH25`, ...): kept, not interpreted. The
+    /// parser reads `@TH1` and `@TH2` as `@` and `@@`, which they mean.
     Other { class: [u8; 2], number: u8 },
 }
 

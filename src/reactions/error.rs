@@ -24,7 +24,9 @@ pub enum ReactionError {
         atom: usize,
     },
     /// Capping a fragment atom needs more hydrogens than an atom can hold.
-    #[error("atom {atom} (0-based node) would need {needed} hydrogen caps, more than an atom holds")]
+    #[error(
+        "atom {atom} (0-based node) would need {needed} hydrogen caps, more than an atom holds"
+    )]
     TooManyCaps {
         /// Node index of the atom.
         atom: usize,

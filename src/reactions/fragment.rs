@@ -74,11 +74,12 @@ impl Skeleton {
             e.direction = None;
         }
         let folded = plain.with_hydrogens_folded();
-        if let Some(h) = folded.atoms().find(|&i| folded.atom(i).element == Element::H) {
-            return Err(ReactionError::LabelledHydrogen { atom: h.index() });
-        }
-        if folded.atom_count() == 0 {
+        let is_hydrogen = |i: NodeIndex| folded.atom(i).element == Element::H;
+        if folded.atoms().all(is_hydrogen) {
             return Err(ReactionError::NoHeavyAtom);
+        }
+        if let Some(h) = folded.atoms().find(|&i| is_hydrogen(i)) {
+            return Err(ReactionError::LabelledHydrogen { atom: h.index() });
         }
         let components = folded.component_count();
         if components > 1 {
@@ -129,7 +130,11 @@ impl Skeleton {
     /// `a` with all its heavy neighbours (CBH-2 fragment).
     pub fn atom_centred(&self, a: NodeIndex) -> Result<Species, ReactionError> {
         let mut tree = vec![root(a)];
-        tree.extend(self.mol.neighbours(a).map(|(n, bond)| child(n, 0, bond.order)));
+        tree.extend(
+            self.mol
+                .neighbours(a)
+                .map(|(n, bond)| child(n, 0, bond.order)),
+        );
         self.fragment(&tree)
     }
 
@@ -200,11 +205,12 @@ fn child(a: NodeIndex, parent: usize, order: BondOrder) -> TreeAtom {
     }
 }
 
-/// Molecular hydrogen, the CBH-0 balancing species.
+/// Molecular hydrogen, the CBH-0 balancing species, in the form the SMILES `[HH]` reads to.
 pub(crate) fn dihydrogen() -> Species {
     let mut mol = Molecule::new();
-    let a = mol.add_atom(Atom::new(Element::H));
-    let b = mol.add_atom(Atom::new(Element::H));
-    mol.add_bond(a, b, Bond::new(BondOrder::Single));
+    mol.add_atom(Atom {
+        hydrogens: 1,
+        ..Atom::new(Element::H)
+    });
     Species::new(mol)
 }

@@ -17,7 +17,7 @@
 //! assert!((se.strain_kj.value / 4.184 - 27.5).abs() < 1.0); // common practice: 27.5 kcal/mol
 //! ```
 
-pub mod balance;
+mod balance;
 pub mod cbh;
 pub mod error;
 pub mod fragment;

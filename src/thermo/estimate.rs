@@ -76,6 +76,8 @@ pub struct Term {
 pub struct EstimateOptions {
     /// Symmetry number and optical-isomer count given by the user instead of the graph's.
     pub symmetry_override: Option<(u64, u8)>,
+    /// No stand-ins: a missing group or ring system is an error (used to derive table values).
+    pub strict: bool,
 }
 
 /// Why a molecule could not be estimated.
@@ -94,11 +96,33 @@ pub enum EstimateError {
         reason: String,
     },
     /// Groups missing from the tables, with no stand-in either.
-    #[error("groups not in the tables: {}", .0.join(", "))]
-    MissingGroups(Vec<String>),
+    #[error("groups not in the tables: {}", describe_missing(.0))]
+    MissingGroups(Vec<MissingGroup>),
+    /// Ring systems missing from the ring tables (strict mode only: otherwise stand-ins apply).
+    #[error("{0} ring system(s) not in the ring tables (strict mode: no stand-ins)")]
+    MissingRings(usize),
     /// No atoms, or several disconnected molecules.
     #[error("{0}")]
     NotOneMolecule(String),
+}
+
+/// A group the tables lack, how often it occurs, and the first atom that is its centre.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct MissingGroup {
+    /// The group.
+    pub key: GroupKey,
+    /// Occurrences in the molecule.
+    pub count: u32,
+    /// 1-based number of the first centre atom.
+    pub atom: usize,
+}
+
+fn describe_missing(missing: &[MissingGroup]) -> String {
+    missing
+        .iter()
+        .map(|m| format!("{} (atom {})", m.key, m.atom))
+        .collect::<Vec<_>>()
+        .join(", ")
 }
 
 /// Problems setting up the estimator from tables.
@@ -209,7 +233,7 @@ impl GroupAdditivity {
         })?;
         let mut terms: Vec<Term> = Vec::new();
         let mut flags: Vec<String> = Vec::new();
-        let mut missing: Vec<String> = Vec::new();
+        let mut missing: Vec<MissingGroup> = Vec::new();
 
         // Groups, counted by key in first-seen order.
         let mut counted: Vec<(GroupKey, u32, NodeIndex)> = Vec::new();
@@ -240,12 +264,14 @@ impl GroupAdditivity {
                 });
                 continue;
             }
-            let stand_in = generic_stand_in(&key).and_then(|k| {
-                self.tables
-                    .group(&k)
-                    .filter(|e| e.values.known.hf)
-                    .map(|e| (k, e))
-            });
+            let stand_in = generic_stand_in(&key)
+                .filter(|_| !options.strict)
+                .and_then(|k| {
+                    self.tables
+                        .group(&k)
+                        .filter(|e| e.values.known.hf)
+                        .map(|e| (k, e))
+                });
             match stand_in {
                 Some((k, entry)) => {
                     flags.push(format!(
@@ -260,7 +286,11 @@ impl GroupAdditivity {
                         note: Some(format!("stand-in: {k}")),
                     });
                 }
-                None => missing.push(format!("{key} (atom {})", atom.index() + 1)),
+                None => missing.push(MissingGroup {
+                    key,
+                    count,
+                    atom: atom.index() + 1,
+                }),
             }
         }
         if !missing.is_empty() {
@@ -289,7 +319,17 @@ impl GroupAdditivity {
 
         // Ring corrections.
         let entries = self.tables.rings();
-        for applied in self.ring_index.apply(p, &self.tables) {
+        let applied_rings = self.ring_index.apply(p, &self.tables);
+        if options.strict {
+            let unmatched = applied_rings
+                .iter()
+                .filter(|a| a.how != RingMatch::Exact)
+                .count();
+            if unmatched > 0 {
+                return Err(EstimateError::MissingRings(unmatched));
+            }
+        }
+        for applied in applied_rings {
             let (note, extra) = match &applied.how {
                 RingMatch::Exact => (None, None),
                 RingMatch::Fallback(text) => {

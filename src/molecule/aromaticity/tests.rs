@@ -73,6 +73,29 @@ fn non_aromatic_molecules() {
     }
 }
 
+/// Fused groups: the imide rings of pyromellitic diimide are aromatic only together with the
+/// benzene ring (perimeter 10 pi electrons); cycl[3.3.3]azine has a 12-electron perimeter and
+/// stays non-aromatic; anthraquinone's middle ring stays non-aromatic. Expected flags agree
+/// with RDKit 2026.09.1 (run while writing the test).
+#[test]
+fn fused_ring_groups() {
+    let (mol, _) = perceived("C1=C2C(=CC3=C1C(=O)NC3=O)C(=O)NC2=O");
+    assert_eq!(aromatic_atoms(&mol), 12);
+    let (mol, _) = perceived("C1=CC2=CC=CC3=CC=CC(=C1)N23");
+    assert_eq!(aromatic_atoms(&mol), 0);
+    let (mol, _) = perceived("O=C1C2=CC=CC=C2C(=O)C2=CC=CC=C12");
+    assert_eq!(aromatic_atoms(&mol), 12);
+    assert_eq!(aromatic_bonds(&mol), 12);
+}
+
+/// Boron with three single bonds is left out (boroxine, borazine); borabenzene's B=C counts.
+#[test]
+fn boron_rings() {
+    assert_eq!(aromatic_atoms(&perceived("B1OBOBO1").0), 0);
+    assert_eq!(aromatic_atoms(&perceived("B1NBNBN1").0), 0);
+    assert_eq!(aromatic_atoms(&perceived("C1=CB=CC=C1").0), 6);
+}
+
 /// Biphenyl's connecting bond and styrene's vinyl group stay non-aromatic.
 #[test]
 fn substituents_stay_non_aromatic() {

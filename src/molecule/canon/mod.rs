@@ -48,15 +48,39 @@ pub fn canonical_smiles(mol: &Molecule) -> String {
     }
     let prepared = Prepared::new(mol);
     let mut stereo = prepared.stereo.clone();
-    for id in ranking::undefined_after_refinement(&prepared, &stereo) {
+    let suspects = ranking::undefined_after_refinement(&prepared, &stereo);
+    if suspects.is_empty() {
+        return key_with(&prepared, &stereo);
+    }
+    // A mark whose inversion gives the same key describes no stereoisomer of its own. Drop such
+    // marks one at a time; when several qualify, drop the one whose removal gives the smallest
+    // key, so the choice does not depend on input order (in cis,cis,trans-1,3,5-trimethyl-
+    // cyclohexane either twin may go, and the two results differ).
+    let mut remaining = suspects;
+    loop {
         let kept = key_with(&prepared, &stereo);
-        let mut flipped = stereo.clone();
-        flipped.flip(id);
-        if key_with(&prepared, &flipped) == kept {
-            stereo.drop_element(id);
+        let mut best: Option<(String, usize)> = None;
+        for (k, &id) in remaining.iter().enumerate() {
+            let mut flipped = stereo.clone();
+            flipped.flip(id);
+            if key_with(&prepared, &flipped) != kept {
+                continue;
+            }
+            let mut without = stereo.clone();
+            without.drop_element(id);
+            let key = key_with(&prepared, &without);
+            if best.as_ref().is_none_or(|(b, _)| key < *b) {
+                best = Some((key, k));
+            }
+        }
+        let Some((key, k)) = best else {
+            return kept;
+        };
+        stereo.drop_element(remaining.remove(k));
+        if remaining.is_empty() {
+            return key;
         }
     }
-    key_with(&prepared, &stereo)
 }
 
 /// The key for one choice of stereo elements.

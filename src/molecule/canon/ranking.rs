@@ -241,12 +241,12 @@ fn complete(
         for &c in &candidates {
             let mut trial = ranks.clone();
             single_out(&mut trial, c);
-            let mut defined = refine_with_stereo(p, classes, stereo, &mut trial);
+            let defined = refine_with_stereo(p, classes, stereo, &mut trial);
             let signature = if deep {
-                let mut done = trial.clone();
-                complete(p, classes, stereo, &mut done, false);
-                defined = stereo_values(p, stereo, &done).1;
-                (quotient(p, classes, &done), defined)
+                // Judge (and keep) the completed ranks: equal signatures then mean equal keys.
+                complete(p, classes, stereo, &mut trial, false);
+                let (_, defined) = stereo_values(p, stereo, &trial);
+                (quotient(p, classes, &trial), defined)
             } else {
                 (quotient(p, classes, &trial), defined)
             };

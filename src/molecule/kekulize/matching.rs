@@ -289,18 +289,73 @@ mod tests {
                 .wrapping_add(1442695040888963407);
             (seed >> 33) as usize
         };
-        for _ in 0..300 {
-            let n = 2 + next() % 9;
+        for _ in 0..3000 {
+            let n = 2 + next() % 11;
+            let density = 2 + next() % 4;
             let mut edges = Vec::new();
             for a in 0..n {
                 for b in a + 1..n {
-                    if next() % 3 == 0 {
+                    if next() % density == 0 {
                         edges.push((a, b));
                     }
                 }
             }
             let found = check(n, &edges).is_ok();
             assert_eq!(found, brute_force_perfect(n, &edges), "{n} {edges:?}");
+        }
+    }
+
+    #[test]
+    fn blossom_search_alone_finds_maximum_matchings() {
+        // Edmonds' search from an empty matching (no greedy start), against brute force.
+        let mut seed: u64 = 987654321;
+        let mut next = || {
+            seed = seed
+                .wrapping_mul(6364136223846793005)
+                .wrapping_add(1442695040888963407);
+            (seed >> 33) as usize
+        };
+        for _ in 0..3000 {
+            let n = 2 + next() % 11;
+            let density = 2 + next() % 4;
+            let mut edges = Vec::new();
+            for a in 0..n {
+                for b in a + 1..n {
+                    if next() % density == 0 {
+                        edges.push((a, b));
+                    }
+                }
+            }
+            let adj = Adjacency::new(n, &edges);
+            let mut mate = vec![NONE; n];
+            let mut search = Blossoms::new(&adj, &mut mate);
+            for v in 0..n {
+                if search.mate[v] == NONE {
+                    if let Some(leaf) = search.augmenting_path(v) {
+                        search.augment(leaf);
+                    }
+                }
+            }
+            for v in 0..n {
+                if mate[v] != NONE {
+                    assert_eq!(mate[mate[v]], v);
+                    assert!(adj.neighbours(v).contains(&mate[v]));
+                }
+            }
+            let size = mate.iter().filter(|&&m| m != NONE).count() / 2;
+            assert_eq!(size, brute_force_maximum(0, &edges), "{n} {edges:?}");
+        }
+    }
+
+    fn brute_force_maximum(covered: u32, edges: &[(usize, usize)]) -> usize {
+        let Some((&(a, b), rest)) = edges.split_first() else {
+            return 0;
+        };
+        let skip = brute_force_maximum(covered, rest);
+        if covered & (1 << a | 1 << b) == 0 {
+            skip.max(1 + brute_force_maximum(covered | 1 << a | 1 << b, rest))
+        } else {
+            skip
         }
     }
 

@@ -279,7 +279,7 @@ fn lowest_bit(v: &[u64]) -> Option<usize> {
 
 /// Rotates a cycle so that its smallest atom comes first and its second atom is the smaller
 /// of that atom's two cycle neighbours, so that output does not depend on search order.
-fn normalise(atoms: &mut Vec<NodeIndex>) {
+fn normalise(atoms: &mut [NodeIndex]) {
     let Some(start) = (0..atoms.len()).min_by_key(|&i| atoms[i]) else {
         return;
     };

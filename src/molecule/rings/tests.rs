@@ -231,107 +231,103 @@ fn ring_count_is_cyclomatic_number() {
     }
 }
 
-#[test]
-fn scratch() {
-    let Ok(text) = std::fs::read_to_string("/tmp/rings_cases.txt") else {
-        return;
-    };
-    for line in text.lines() {
-        let mut parts = line.split_whitespace();
-        let name = parts.next().unwrap_or("");
-        let n: usize = parts.next().and_then(|x| x.parse().ok()).unwrap_or(0);
-        let edges: Vec<(usize, usize)> = parts
-            .map(|p| {
-                let (a, b) = p.split_once('-').unwrap();
-                (a.parse().unwrap(), b.parse().unwrap())
-            })
-            .collect();
-        let mol = skeleton(n, &edges);
-        let t = std::time::Instant::now();
-        let info = RingInfo::perceive(&mol);
-        let dt = t.elapsed();
-        println!(
-            "{name}: sizes {:?} relevant {} unique {} systems {:?} {:?}",
-            info.ring_sizes(),
-            info.relevant_cycle_count(),
-            info.sssr_is_unique(),
-            info.systems
-                .iter()
-                .map(|s| (s.kind, s.has_spiro_junction))
-                .collect::<Vec<_>>(),
-            dt
-        );
+/// All simple cycles of a small graph as bond bit masks, by depth-first search from each
+/// cycle's lowest atom.
+fn all_cycles(n: usize, edges: &[(usize, usize)]) -> Vec<u64> {
+    let mut adjacency = vec![Vec::new(); n];
+    for (i, &(a, b)) in edges.iter().enumerate() {
+        adjacency[a].push((b, i));
+        adjacency[b].push((a, i));
     }
+    fn walk(
+        start: usize,
+        v: usize,
+        visited: u64,
+        used: u64,
+        adjacency: &[Vec<(usize, usize)>],
+        out: &mut Vec<u64>,
+    ) {
+        for &(u, e) in &adjacency[v] {
+            if used >> e & 1 == 1 {
+                continue;
+            }
+            if u == start && used.count_ones() >= 2 {
+                out.push(used | 1 << e);
+            } else if u > start && visited >> u & 1 == 0 {
+                walk(start, u, visited | 1 << u, used | 1 << e, adjacency, out);
+            }
+        }
+    }
+    let mut out = Vec::new();
+    for s in 0..n {
+        walk(s, s, 1 << s, 0, &adjacency, &mut out);
+    }
+    out.sort_unstable();
+    out.dedup();
+    out
 }
 
-#[test]
-fn scratch_reference() {
-    let Ok(text) = std::fs::read_to_string("/tmp/crc_cases.tsv") else {
-        return;
-    };
-    let (mut size_bad, mut arom_bad, mut total) = (0, 0, 0);
-    let (mut formula_bad, mut parse_bad) = (0, 0);
-    let t0 = std::time::Instant::now();
-    for line in text.lines() {
-        let cols: Vec<&str> = line.split('\t').collect();
-        let mut mol = Molecule::new();
-        let nodes: Vec<NodeIndex> = cols[1]
-            .split_whitespace()
-            .map(|a| {
-                let f: Vec<i32> = a.split(':').map(|x| x.parse().unwrap()).collect();
-                let mut atom = Atom::new(Element::from_atomic_number(f[0] as u8).unwrap());
-                atom.charge = f[1] as i8;
-                atom.hydrogens = f[2] as u8;
-                atom.radical_electrons = f[3] as u8;
-                mol.add_atom(atom)
-            })
-            .collect();
-        for b in cols[2].split_whitespace() {
-            let f: Vec<usize> = b.split('-').map(|x| x.parse().unwrap()).collect();
-            let order = BondOrder::from_valence(f[2] as u8).unwrap();
-            mol.add_bond(nodes[f[0]], nodes[f[1]], Bond::new(order));
-        }
-        total += 1;
-        let info = RingInfo::perceive(&mol);
-        let sizes: Vec<usize> = cols[4]
-            .split(',')
-            .filter(|x| !x.is_empty())
-            .map(|x| x.parse().unwrap())
-            .collect();
-        if info.ring_sizes() != sizes {
-            size_bad += 1;
-            println!(
-                "SIZES {} ours {:?} rdkit {:?}",
-                cols[0],
-                info.ring_sizes(),
-                sizes
-            );
-        }
-        crate::molecule::aromaticity::perceive_aromaticity(&mut mol, &info);
-        let flags: String = mol
-            .atoms()
-            .map(|a| if mol.atom(a).aromatic { '1' } else { '0' })
-            .collect();
-        if flags != cols[3] {
-            arom_bad += 1;
-            if arom_bad < 40 {
-                println!("AROM {} ours {} rdkit {}", cols[0], flags, cols[3]);
-            }
-        }
-        match parse_smiles(cols[0]) {
-            Ok(m) => {
-                let f = crate::molecule::formula::Formula::of(&m);
-                if f.hill() != cols[5] {
-                    formula_bad += 1;
-                    println!("FORMULA {} ours {} rdkit {}", cols[0], f.hill(), cols[5]);
-                }
-                let w: f64 = cols[6].parse().unwrap();
-                if (f.molar_mass() - w).abs() > 0.05 {
-                    println!("MASS {} ours {} rdkit {}", cols[0], f.molar_mass(), w);
-                }
-            }
-            Err(_) => parse_bad += 1,
+/// Reduces `v` against an echelon basis of (pivot, row) pairs.
+fn reduce(basis: &[(u32, u64)], mut v: u64) -> u64 {
+    for &(pivot, row) in basis {
+        if v >> pivot & 1 == 1 {
+            v ^= row;
         }
     }
-    println!("total {total} size mismatches {size_bad} aromaticity mismatches {arom_bad} formula {formula_bad} parse {parse_bad} time {:?}", t0.elapsed());
+    v
+}
+
+/// Random small graphs: the basis has the cyclomatic number of rings, the smallest possible
+/// total size, and the relevant-cycle count matches a brute-force count (cycles independent
+/// of all strictly shorter cycles).
+#[test]
+fn matches_brute_force_on_random_graphs() {
+    let mut seed = 0x2545_f491_4f6c_dd1d_u64;
+    let mut next = move || {
+        seed ^= seed << 13;
+        seed ^= seed >> 7;
+        seed ^= seed << 17;
+        seed
+    };
+    let mut with_choices = 0;
+    for _ in 0..300 {
+        let n = 4 + (next() % 7) as usize;
+        let mut edges = Vec::new();
+        for a in 0..n {
+            for b in a + 1..n {
+                if next() % 100 < 38 && edges.len() < 20 {
+                    edges.push((a, b));
+                }
+            }
+        }
+        let mol = skeleton(n, &edges);
+        let info = RingInfo::perceive(&mol);
+        assert_eq!(info.rings.len(), mol.cyclomatic_number(), "{edges:?}");
+
+        let mut cycles = all_cycles(n, &edges);
+        cycles.sort_by_key(|c| c.count_ones());
+        let mut basis: Vec<(u32, u64)> = Vec::new();
+        let (mut total, mut relevant, mut shorter, mut length) = (0, 0u64, 0, 0);
+        for c in cycles {
+            if c.count_ones() != length {
+                length = c.count_ones();
+                shorter = basis.len();
+            }
+            if reduce(&basis[..shorter], c) == 0 {
+                continue;
+            }
+            relevant += 1;
+            let r = reduce(&basis, c);
+            if r != 0 {
+                basis.push((r.trailing_zeros(), r));
+                total += length as usize;
+            }
+        }
+        let ours: usize = info.ring_sizes().iter().sum();
+        assert_eq!(ours, total, "{edges:?}");
+        assert_eq!(info.relevant_cycle_count(), relevant, "{edges:?}");
+        with_choices += usize::from(!info.sssr_is_unique());
+    }
+    // The sample must exercise graphs with several equally small choices.
+    assert!(with_choices > 30, "{with_choices}");
 }

@@ -73,6 +73,8 @@ struct Reader<'a> {
     pending: Option<(BondSymbol, usize)>,
     branches: Vec<BranchOpen>,
     rings: [Option<RingOpen>; 100],
+    /// Column of the latest `.`, for a component left empty.
+    last_dot: usize,
 }
 
 /// Reads `input` into a molecule (hydrogens of organic-subset atoms not yet assigned, aromatic
@@ -90,6 +92,7 @@ pub(super) fn read(input: &str) -> Result<(Molecule, Vec<bool>), Failure> {
         pending: None,
         branches: Vec::new(),
         rings: [None; 100],
+        last_dot: 0,
     };
     let mut i = 0;
     while i < bytes.len() {
@@ -124,6 +127,7 @@ impl Reader<'_> {
                     return Err((SmilesErrorKind::UnexpectedCharacter('.'), i));
                 }
                 self.prev = None;
+                self.last_dot = i;
                 Ok(i + 1)
             }
             b'0'..=b'9' => {
@@ -277,6 +281,9 @@ impl Reader<'_> {
             .branches
             .pop()
             .ok_or((SmilesErrorKind::StrayCloseParen, i))?;
+        if self.prev.is_none() {
+            return Err(self.empty_component());
+        }
         if open.atoms_before == self.mol.atom_count() {
             return Err((SmilesErrorKind::EmptyBranch, open.column));
         }
@@ -332,10 +339,18 @@ impl Reader<'_> {
         Ok(())
     }
 
+    /// The error for a `.` with no atom after it.
+    fn empty_component(&self) -> Failure {
+        (SmilesErrorKind::UnexpectedCharacter('.'), self.last_dot)
+    }
+
     /// Checks that nothing is left open at the end of the input.
     fn finish(&self) -> Result<(), Failure> {
         if let Some((_, column)) = self.pending {
             return Err((SmilesErrorKind::BondToNothing, column));
+        }
+        if self.prev.is_none() {
+            return Err(self.empty_component());
         }
         if let Some(open) = self.branches.last() {
             return Err((SmilesErrorKind::UnclosedBranch, open.column));

@@ -295,6 +295,8 @@ fn malformed_inputs_give_kind_and_column() {
     assert_eq!(kind("C==C"), (K::UnexpectedCharacter('='), 2));
     assert_eq!(kind(".C"), (K::UnexpectedCharacter('.'), 0));
     assert_eq!(kind("C..C"), (K::UnexpectedCharacter('.'), 2));
+    assert_eq!(kind("CC."), (K::UnexpectedCharacter('.'), 2));
+    assert_eq!(kind("C(C.)C"), (K::UnexpectedCharacter('.'), 3));
     assert_eq!(kind("1CC"), (K::UnexpectedCharacter('1'), 0));
     assert_eq!(kind("C=1CC#1"), (K::RingBondConflict { ring: 1 }, 6));
     assert_eq!(kind("C11"), (K::RingBondToSelf { ring: 1 }, 2));

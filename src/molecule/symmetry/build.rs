@@ -10,6 +10,7 @@ use petgraph::graph::NodeIndex;
 use std::collections::HashMap;
 
 use super::cage::orient_cage;
+use super::faces::{oriented_ring_steps, ring_centre_refs};
 use super::labelled::{Anchor, LabelledGraph, StereoUnit, UnitKind};
 use super::partition::Partition;
 use crate::molecule::aromaticity::perceive_aromaticity;
@@ -27,6 +28,9 @@ pub(crate) struct Built {
     /// Whether some ring of four or more atoms holds an sp3 (four-connected) atom, so that
     /// the real ring may pucker below the flat-graph symmetry.
     pub puckerable_ring: bool,
+    /// Unwritten tetrahedral or double-bond units whose references are all inequivalent in
+    /// the stereo-free graph: places where the tool had to pick a configuration.
+    pub open_stereocentres: usize,
 }
 
 /// Elements whose four-connected atoms are treated as tetrahedral (main-group B to Te).
@@ -146,6 +150,12 @@ pub(crate) fn build(mol: &Molecule) -> Built {
                 .to_string(),
         );
     }
+    let ring_cycles: Vec<Vec<u32>> = rings
+        .rings
+        .iter()
+        .map(|r| r.atoms.iter().map(|a| a.index() as u32).collect())
+        .collect();
+    let steps = oriented_ring_steps(&ring_cycles, g.len());
     let mut hypervalent = false;
     for v in 0..n0 {
         let degree = g.adj[v].len();
@@ -158,6 +168,15 @@ pub(crate) fn build(mol: &Molecule) -> Built {
         }
         let mut refs: Vec<u32> = g.adj[v].iter().map(|e| e.0).collect();
         by_cell(&mut refs);
+        let mut exocyclic: Vec<u32> = refs
+            .iter()
+            .copied()
+            .filter(|&r| !steps[v].iter().any(|s| s.0 == r || s.1 == r))
+            .collect();
+        by_cell(&mut exocyclic);
+        if let Some(from_faces) = ring_centre_refs(&steps[v], &exocyclic) {
+            refs = from_faces;
+        }
         let kind = match pyramid[v] {
             Some((_, true)) => UnitKind::InvertingPyramid,
             Some((_, false)) => UnitKind::StablePyramid,
@@ -191,10 +210,21 @@ pub(crate) fn build(mol: &Molecule) -> Built {
     }
     double_bond_units(mol, &mut g, &cage.member, &by_cell);
     g.finish();
+    let open_stereocentres = g
+        .units
+        .iter()
+        .filter(|u| !u.specified && u.kind != UnitKind::Cage)
+        .filter(|u| {
+            let mut cells: Vec<u32> = u.refs.iter().map(|&r| root.cell_of[r as usize]).collect();
+            cells.sort_unstable();
+            cells.windows(2).all(|w| w[0] != w[1])
+        })
+        .count();
     Built {
         graph: g,
         notes,
         puckerable_ring,
+        open_stereocentres,
     }
 }
 
@@ -355,7 +385,11 @@ fn double_bond_units(
         units.push(StereoUnit {
             anchor: Anchor::Bond(x, z),
             refs: vec![a[0], a[1], b[0], b[1]],
-            kind: UnitKind::DoubleBond,
+            kind: if steps % 2 == 0 {
+                UnitKind::DoubleBond
+            } else {
+                UnitKind::Axial
+            },
             specified,
         });
     }

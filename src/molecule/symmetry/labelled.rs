@@ -27,8 +27,11 @@ pub(crate) enum UnitKind {
     InvertingPyramid,
     /// Three-connected atom with a lone pair that does not invert quickly (sulfoxide S, P).
     StablePyramid,
-    /// Double bond (cis/trans) or cumulene (axial).
+    /// Double bond or cumulene with an odd number of double bonds (cis/trans). The molecule is
+    /// flat there, so a reflection keeps the arrangement: the mirror image leaves it alone.
     DoubleBond,
+    /// Cumulene with an even number of double bonds (allene): axial, handed like a centre.
+    Axial,
     /// Atom of a closed polyhedral cage (fullerene): cyclic order of its three neighbours.
     Cage,
 }
@@ -147,11 +150,14 @@ impl LabelledGraph {
         })
     }
 
-    /// The mirror image: every unit's first two references swapped.
+    /// The mirror image: every handed unit's first two references swapped (cis/trans units
+    /// are their own mirror image).
     pub fn mirrored(&self) -> LabelledGraph {
         let mut m = self.clone();
         for u in &mut m.units {
-            u.refs.swap(0, 1);
+            if u.kind != UnitKind::DoubleBond {
+                u.refs.swap(0, 1);
+            }
         }
         m
     }

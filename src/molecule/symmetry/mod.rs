@@ -26,6 +26,7 @@
 
 mod build;
 mod cage;
+mod faces;
 mod labelled;
 mod partition;
 mod reduce;
@@ -139,7 +140,7 @@ pub fn symmetry_number_with(mol: &Molecule, options: &SymmetryOptions) -> Symmet
         notes.push("chiral; configuration not written: taken as the racemate (n = 2)".to_string());
         2
     };
-    if !chiral && written == 0 && has_open_stereo(g) {
+    if written == 0 && built.open_stereocentres > 1 {
         notes.push(
             "unwritten stereo: sigma is for one representative stereoisomer (like \
              configurations at equivalent centres)"
@@ -180,13 +181,6 @@ pub fn symmetry_number_with(mol: &Molecule, options: &SymmetryOptions) -> Symmet
     let mut info = plain(total, external, internal, chiral, notes);
     info.optical_isomers = optical_isomers;
     info
-}
-
-/// Whether some stereo unit was left unwritten (its configuration chosen by the tool).
-fn has_open_stereo(g: &LabelledGraph) -> bool {
-    g.units
-        .iter()
-        .any(|u| !u.specified && u.kind != UnitKind::Cage)
 }
 
 /// Whether no improper automorphism exists. Pyramidal nitrogen and oxonium centres whose

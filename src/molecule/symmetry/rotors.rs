@@ -81,16 +81,17 @@ fn side(g: &LabelledGraph, start: u32, block: u32) -> Vec<u32> {
 /// Proper group order of `g` with the listed vertices given colours of their own.
 fn order_with_fixed(g: &LabelledGraph, fixed: &[u32]) -> Result<u128, SearchLimit> {
     let mut g = g.clone();
+    let fresh = g.colour.iter().max().map_or(0, |m| m + 1);
     for (i, &v) in fixed.iter().enumerate() {
-        g.colour[v as usize] = u32::MAX - i as u32;
+        g.colour[v as usize] = fresh + i as u32;
     }
     let folded = fold_terminals(&g);
     Ok(proper_group_order(&folded.graph)?.saturating_mul(folded.factor))
 }
 
-/// Orbit size of a neighbour of `b` (other than `a`) under the proper automorphisms that fix
-/// the `a` side of the bond pointwise.
-fn rotor_orbit(g: &LabelledGraph, a: u32, b: u32, rotor: &[u32]) -> Result<u128, SearchLimit> {
+/// Orbit size of a neighbour of `b = rotor[0]` (other than `a`) under the proper
+/// automorphisms that fix the `a` side of the bond pointwise.
+fn rotor_orbit(g: &LabelledGraph, a: u32, rotor: &[u32]) -> Result<u128, SearchLimit> {
     let mut keep = rotor.to_vec();
     keep.push(a);
     let frag = g.induced(&keep);
@@ -129,9 +130,9 @@ pub(crate) fn rotors(g: &LabelledGraph) -> Result<Vec<Rotor>, SearchLimit> {
         } else {
             ((b, a, side_a), (a, b, side_b))
         };
-        let mut best = rotor_orbit(g, small.0, small.1, &small.2)?;
-        if best < (g.degree(small.1) as u128 - 1) {
-            best = best.max(rotor_orbit(g, large.0, large.1, &large.2)?);
+        let mut best = rotor_orbit(g, small.0, &small.2)?;
+        if best < (g.degree(large.1) as u128).saturating_sub(1) {
+            best = best.max(rotor_orbit(g, large.0, &large.2)?);
         }
         if best > 1 {
             out.push(Rotor {

@@ -1,0 +1,296 @@
+//! Maintainer tool: derives groups and ring corrections that the published tables lack, each from
+//! one measured compound, and writes them to group-tables/groups-derived.toml and
+//! group-tables/rings-derived.toml.
+//!
+//! Rule (fixed in advance, independent of how well anything fits): a compound of
+//! tests/reference/thermo_reference.tsv qualifies when, with every other table entry present, it
+//! lacks exactly one group (or exactly one ring system and no group). For each missing entry the
+//! compound with the fewest heavy atoms is used (ties: ATcT before CRC, then CAS number). The
+//! value is (measured - sum of the other terms) / occurrences. Rounds repeat until nothing new
+//! can be derived. The compounds used are named in `derived_from`, and the validation test leaves
+//! them out of its statistics. Heat capacities are not derived (one temperature is not a Cp(T)).
+//!
+//! Run: `cargo run --release --example derive_missing_groups`
+
+use std::collections::{BTreeMap, HashSet};
+use std::fmt::Write as _;
+use std::path::{Path, PathBuf};
+
+use ringheat::groups::ring_match::correction_skeletons;
+use ringheat::groups::table::GroupTables;
+use ringheat::molecule::formula::Formula;
+use ringheat::molecule::PerceivedMolecule;
+use ringheat::thermo::estimate::{EstimateError, EstimateOptions, GroupAdditivity};
+
+/// Assumed uncertainty of a CRC Handbook Hf298 without its own (kJ/mol): our choice.
+const CRC_HF_UNC_KJ: f64 = 2.0;
+/// Assumed uncertainty of a CRC Handbook S298 (J/(mol K)): our choice.
+const CRC_S_UNC_J: f64 = 2.0;
+
+struct Reference {
+    cas: String,
+    name: String,
+    smiles: String,
+    hf: f64,
+    hf_unc: Option<f64>,
+    hf_source: String,
+    s: Option<f64>,
+    heavy_atoms: u32,
+}
+
+fn read_reference(path: &Path) -> Vec<Reference> {
+    let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+    let mut lines = text
+        .lines()
+        .filter(|l| !l.starts_with('#') && !l.trim().is_empty());
+    let header: Vec<&str> = lines
+        .next()
+        .map(|h| h.split('\t').collect())
+        .unwrap_or_default();
+    let col = |n: &str| {
+        header
+            .iter()
+            .position(|h| *h == n)
+            .unwrap_or_else(|| panic!("column {n}"))
+    };
+    let (c_cas, c_name, c_smiles, c_hf, c_unc, c_src, c_s) = (
+        col("cas"),
+        col("name"),
+        col("smiles"),
+        col("hf298_kj"),
+        col("hf298_unc_kj"),
+        col("hf_source"),
+        col("s298_j"),
+    );
+    lines
+        .filter_map(|l| {
+            let c: Vec<&str> = l.split('\t').collect();
+            let hf = c[c_hf].parse().ok()?;
+            let mol = ringheat::molecule::parse_smiles(c[c_smiles]).ok()?;
+            Some(Reference {
+                cas: c[c_cas].to_string(),
+                name: c[c_name].to_string(),
+                smiles: c[c_smiles].to_string(),
+                hf,
+                hf_unc: c[c_unc].parse().ok(),
+                hf_source: c[c_src].to_string(),
+                s: c[c_s].parse().ok(),
+                heavy_atoms: Formula::of(&mol).heavy_atoms(),
+            })
+        })
+        .collect()
+}
+
+fn priority(r: &Reference) -> (u32, bool, String) {
+    (
+        r.heavy_atoms,
+        !r.hf_source.starts_with("ATcT"),
+        r.cas.clone(),
+    )
+}
+
+fn toml_string(s: &str) -> String {
+    format!("\"{}\"", s.replace('\\', "\\\\").replace('"', "\\\""))
+}
+
+const META: &str = "[meta]\nenthalpy_unit = \"kJ/mol\"\nentropy_unit = \"J/(mol K)\"\n\
+cp_temperatures = [300, 400, 500, 600, 800, 1000, 1500]\n";
+
+fn main() {
+    let root = PathBuf::from(env!("CARGO_MANIFEST_DIR"));
+    let tables_dir = root.join("group-tables");
+    let refs = read_reference(&root.join("tests/reference/thermo_reference.tsv"));
+    let work = root.join("target/derive-groups");
+    let _ = std::fs::remove_dir_all(&work);
+    std::fs::create_dir_all(&work).expect("work dir");
+    for entry in std::fs::read_dir(&tables_dir).expect("group-tables") {
+        let path = entry.expect("entry").path();
+        let name = path.file_name().and_then(|n| n.to_str()).unwrap_or("");
+        if name.ends_with(".toml") && !name.ends_with("-derived.toml") {
+            std::fs::copy(&path, work.join(name)).expect("copy");
+        }
+    }
+    // Compounds already used by other files' derivations stay unavailable.
+    let base = GroupTables::load_dir(&work).expect("tables load");
+    let mut used: HashSet<String> = HashSet::new();
+    let derived_texts = base
+        .groups()
+        .filter_map(|g| g.derived_from.clone())
+        .chain(base.corrections().filter_map(|c| c.derived_from.clone()))
+        .chain(base.rings().iter().filter_map(|r| r.derived_from.clone()));
+    for t in derived_texts {
+        for w in t.split(|c: char| !(c.is_ascii_digit() || c == '-')) {
+            if w.split('-').count() == 3 {
+                used.insert(w.to_string());
+            }
+        }
+    }
+    let mut groups_out = String::new();
+    let mut rings_out = String::new();
+    let strict = EstimateOptions {
+        strict: true,
+        ..EstimateOptions::default()
+    };
+    for round in 1..=8 {
+        let engine = GroupAdditivity::new(GroupTables::load_dir(&work).expect("tables load"))
+            .expect("ring patterns");
+        // Missing key -> (priority, reference index, occurrences).
+        let mut group_candidates: BTreeMap<String, ((u32, bool, String), usize, u32)> =
+            BTreeMap::new();
+        let mut ring_candidates: Vec<((u32, bool, String), usize)> = Vec::new();
+        for (i, r) in refs.iter().enumerate() {
+            if used.contains(&r.cas) {
+                continue;
+            }
+            let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
+                continue;
+            };
+            match engine.estimate(&p, &strict) {
+                Err(EstimateError::MissingGroups(m)) if m.len() == 1 => {
+                    let key = m[0].key.to_string();
+                    let cand = (priority(r), i, m[0].count);
+                    let better = group_candidates.get(&key).is_none_or(|c| cand.0 < c.0);
+                    if better {
+                        group_candidates.insert(key, cand);
+                    }
+                }
+                Err(EstimateError::MissingRings(1)) => {
+                    if correction_skeletons(&p).len() == 1 {
+                        ring_candidates.push((priority(r), i));
+                    }
+                }
+                _ => {}
+            }
+        }
+        // One ring candidate per distinct skeleton.
+        ring_candidates.sort();
+        let mut ring_chosen: Vec<usize> = Vec::new();
+        for (_, i) in &ring_candidates {
+            let p = PerceivedMolecule::from_smiles(&refs[*i].smiles).expect("parsed before");
+            let s = correction_skeletons(&p).remove(0);
+            let dup = ring_chosen.iter().any(|j| {
+                let q = PerceivedMolecule::from_smiles(&refs[*j].smiles).expect("parsed");
+                correction_skeletons(&q).remove(0).same_as(&s)
+            });
+            if !dup {
+                ring_chosen.push(*i);
+            }
+        }
+        if group_candidates.is_empty() && ring_chosen.is_empty() {
+            println!("round {round}: nothing more to derive");
+            break;
+        }
+        // Zero placeholders, then the estimate of each chosen compound gives the rest.
+        let mut placeholder = String::from(META);
+        for key in group_candidates.keys() {
+            let _ = writeln!(
+                placeholder,
+                "\n[[group]]\nkey = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\nsource = \"placeholder\"",
+                toml_string(key)
+            );
+        }
+        for (n, i) in ring_chosen.iter().enumerate() {
+            let _ = writeln!(
+                placeholder,
+                "\n[[ring]]\nname = \"placeholder {n}\"\nsmiles = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\nsource = \"placeholder\"",
+                toml_string(&refs[*i].smiles)
+            );
+        }
+        std::fs::write(work.join("zz-placeholder.toml"), &placeholder).expect("write");
+        let probe = GroupAdditivity::new(GroupTables::load_dir(&work).expect("placeholder load"))
+            .expect("placeholder rings");
+        let mut derived_groups = String::new();
+        let mut derived_rings = String::new();
+        let mut count = 0;
+        let emit = |out: &mut String, head: &str, r: &Reference, n: u32| -> bool {
+            let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
+                return false;
+            };
+            let Ok(est) = probe.estimate(&p, &strict) else {
+                return false;
+            };
+            let k = n as f64;
+            let meas_unc = r.hf_unc.unwrap_or(CRC_HF_UNC_KJ);
+            let hf = (r.hf - est.hf298_kj.value) / k;
+            let unc_hf = meas_unc.hypot(est.hf298_kj.uncertainty) / k;
+            let _ = write!(out, "\n{head}\nhf = {hf:.2}\nunc_hf = {unc_hf:.2}\n");
+            let mut what = format!("Hf298 {:.2} kJ/mol ({})", r.hf, r.hf_source);
+            if let (Some(s_meas), Some(s_est)) = (r.s, est.s298_j) {
+                let s = (s_meas - s_est.value) / k;
+                let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
+                let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
+                what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) (CRC)"));
+            }
+            let _ = write!(
+                out,
+                "derived_from = {}\nsource = {}\n",
+                toml_string(&format!("{}, {}", r.name, r.cas)),
+                toml_string(&format!(
+                    "Derived from one measured compound: {} (CAS {}), {} as carried by the \
+                     chemicals 1.5.2 package (tests/reference/thermo_reference.tsv), minus the \
+                     other terms of ringheat's tables, divided by {} occurrence(s) \
+                     (examples/derive_missing_groups.rs, round {round})",
+                    r.name, r.cas, what, n
+                ))
+            );
+            true
+        };
+        for (key, (_, i, n)) in &group_candidates {
+            let r = &refs[*i];
+            if emit(
+                &mut derived_groups,
+                &format!("[[group]]\nkey = {}", toml_string(key)),
+                r,
+                *n,
+            ) {
+                used.insert(r.cas.clone());
+                count += 1;
+            }
+        }
+        for i in &ring_chosen {
+            let r = &refs[*i];
+            let head = format!(
+                "[[ring]]\nname = {}\nsmiles = {}",
+                toml_string(&format!("ring of {}", r.name)),
+                toml_string(&r.smiles)
+            );
+            if emit(&mut derived_rings, &head, r, 1) {
+                used.insert(r.cas.clone());
+                count += 1;
+            }
+        }
+        let _ = std::fs::remove_file(work.join("zz-placeholder.toml"));
+        groups_out.push_str(&derived_groups);
+        rings_out.push_str(&derived_rings);
+        std::fs::write(
+            work.join("groups-derived.toml"),
+            format!("{META}{groups_out}"),
+        )
+        .expect("write");
+        std::fs::write(
+            work.join("rings-derived.toml"),
+            format!("{META}{rings_out}"),
+        )
+        .expect("write");
+        println!("round {round}: derived {count} entries");
+    }
+    let header = |what: &str| {
+        format!(
+            "# {what} that the published tables lack, each derived from one measured compound.\n\
+             # Generated by examples/derive_missing_groups.rs (see its doc comment for the rule);\n\
+             # do not edit by hand: fix the published tables or the rule and regenerate.\n\
+             # The compounds named in derived_from are left out of the validation statistics.\n"
+        )
+    };
+    std::fs::write(
+        tables_dir.join("groups-derived.toml"),
+        format!("{}{META}{groups_out}", header("Benson groups")),
+    )
+    .expect("write groups-derived.toml");
+    std::fs::write(
+        tables_dir.join("rings-derived.toml"),
+        format!("{}{META}{rings_out}", header("Ring corrections")),
+    )
+    .expect("write rings-derived.toml");
+    println!("wrote group-tables/groups-derived.toml and group-tables/rings-derived.toml");
+}
