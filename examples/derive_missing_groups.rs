@@ -81,7 +81,10 @@ fn read_reference(path: &Path) -> Vec<Reference> {
         .collect()
 }
 
-fn priority(r: &Reference) -> (u32, bool, String) {
+/// Order of preference among candidate compounds: fewest heavy atoms, ATcT first, CAS number.
+type Priority = (u32, bool, String);
+
+fn priority(r: &Reference) -> Priority {
     (
         r.heavy_atoms,
         !r.hf_source.starts_with("ATcT"),
@@ -135,9 +138,8 @@ fn main() {
         let engine = GroupAdditivity::new(GroupTables::load_dir(&work).expect("tables load"))
             .expect("ring patterns");
         // Missing key -> (priority, reference index, occurrences).
-        let mut group_candidates: BTreeMap<String, ((u32, bool, String), usize, u32)> =
-            BTreeMap::new();
-        let mut ring_candidates: Vec<((u32, bool, String), usize)> = Vec::new();
+        let mut group_candidates: BTreeMap<String, (Priority, usize, u32)> = BTreeMap::new();
+        let mut ring_candidates: Vec<(Priority, usize)> = Vec::new();
         for (i, r) in refs.iter().enumerate() {
             if used.contains(&r.cas) {
                 continue;
@@ -154,10 +156,8 @@ fn main() {
                         group_candidates.insert(key, cand);
                     }
                 }
-                Err(EstimateError::MissingRings(1)) => {
-                    if correction_skeletons(&p).len() == 1 {
-                        ring_candidates.push((priority(r), i));
-                    }
+                Err(EstimateError::MissingRings(1)) if correction_skeletons(&p).len() == 1 => {
+                    ring_candidates.push((priority(r), i));
                 }
                 _ => {}
             }

@@ -205,7 +205,7 @@ fn group_additivity_matches_measured_gas_phase_data() {
         *reasons.entry(key).or_default() += 1;
     }
     let mut reasons: Vec<(String, usize)> = reasons.into_iter().collect();
-    reasons.sort_by(|a, b| b.1.cmp(&a.1));
+    reasons.sort_by_key(|r| std::cmp::Reverse(r.1));
     println!("most common reasons for no estimate:");
     for (why, n) in reasons.iter().take(25) {
         println!("  {n:4}  {why}");

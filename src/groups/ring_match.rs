@@ -10,6 +10,7 @@ use std::collections::HashMap;
 
 use petgraph::graph::{NodeIndex, UnGraph};
 
+use crate::molecule::aromaticity::is_benzenoid_ring;
 use crate::molecule::{BondOrder, Element, PerceivedMolecule};
 
 /// An atom of a ring skeleton.
@@ -108,12 +109,7 @@ impl RingSkeleton {
 
 /// Whether SSSR ring `r` is a benzenoid ring (six aromatic carbons).
 pub fn is_benzenoid(p: &PerceivedMolecule, r: usize) -> bool {
-    let ring = &p.rings.rings[r];
-    ring.atoms.len() == 6
-        && ring.atoms.iter().all(|a| {
-            let atom = p.mol.atom(*a);
-            atom.aromatic && atom.element == Element::C
-        })
+    is_benzenoid_ring(&p.mol, &p.rings.rings[r])
 }
 
 /// Builds the skeleton spanned by the given SSSR rings.
@@ -201,11 +197,11 @@ pub fn correction_skeletons(p: &PerceivedMolecule) -> Vec<RingSkeleton> {
         }
     }
     let mut systems: Vec<(usize, Vec<usize>)> = Vec::new();
-    for i in 0..candidates.len() {
+    for (i, &ring) in candidates.iter().enumerate() {
         let root = find(&mut parent, i);
         match systems.iter_mut().find(|(r, _)| *r == root) {
-            Some((_, rings)) => rings.push(candidates[i]),
-            None => systems.push((root, vec![candidates[i]])),
+            Some((_, rings)) => rings.push(ring),
+            None => systems.push((root, vec![ring])),
         }
     }
     systems

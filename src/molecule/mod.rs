@@ -11,6 +11,7 @@ pub mod rings;
 pub mod smiles;
 pub mod symmetry;
 
+pub use canon::canonical_smiles;
 pub use element::Element;
 pub use graph::{
     Atom, Bond, BondDirection, BondOrder, ChiralCentre, ChiralTag, Molecule, StereoNeighbour,

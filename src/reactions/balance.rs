@@ -119,3 +119,66 @@ fn bond_environment_labels(mol: &Molecule) -> Vec<(String, i64)> {
         })
         .collect()
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::molecule::parse_smiles;
+    use crate::reactions::{Rung, Species};
+
+    fn species(smiles: &str) -> Species {
+        Species::new(parse_smiles(smiles).expect("test SMILES parses"))
+    }
+
+    fn reaction(rung: Rung, left: &[(&str, u32)], right: &[(&str, u32)]) -> Reaction {
+        let side = |t: &[(&str, u32)]| t.iter().map(|(s, n)| (species(s), *n)).collect();
+        Reaction {
+            rung,
+            target: species(left[0].0),
+            reactants: side(left),
+            products: side(right),
+        }
+    }
+
+    #[test]
+    fn element_imbalance_is_caught() {
+        let r = reaction(Rung::Cbh0, &[("C1CC1", 1), ("[HH]", 2)], &[("C", 3)]);
+        let err = check_conservation(&r).err();
+        assert!(
+            matches!(err, Some(ReactionError::Unbalanced { quantity, .. }) if quantity == "elements and charge")
+        );
+    }
+
+    #[test]
+    fn bond_types_checked_from_cbh1() {
+        // Propene + ethane -> propane + ethylene keeps the bond types; cyclopropane + H2 ->
+        // propane balances atoms but turns a C-C bond into two C-H bonds.
+        let fine = reaction(
+            Rung::Cbh1,
+            &[("C=CC", 1), ("CC", 1)],
+            &[("CCC", 1), ("C=C", 1)],
+        );
+        assert!(check_conservation(&fine).is_ok());
+        let opened = reaction(Rung::Cbh1, &[("C1CC1", 1), ("[HH]", 1)], &[("CCC", 1)]);
+        assert!(check_conservation(&opened).is_err());
+        // The same reaction passes at CBH-0, where only elements count.
+        let coarse = Reaction {
+            rung: Rung::Cbh0,
+            ..opened
+        };
+        assert!(check_conservation(&coarse).is_ok());
+    }
+
+    #[test]
+    fn atom_environments_checked_from_cbh2() {
+        // Isobutane + ethane -> 2 propane keeps the C-C bond count (4) but not the carbon
+        // environments (CH and 5 CH3 against 2 CH2 and 4 CH3).
+        let r = reaction(Rung::Cbh2, &[("CC(C)C", 1), ("CC", 1)], &[("CCC", 2)]);
+        assert!(check_conservation(&Reaction {
+            rung: Rung::Cbh1,
+            ..r.clone()
+        })
+        .is_ok());
+        assert!(check_conservation(&r).is_err());
+    }
+}

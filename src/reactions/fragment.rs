@@ -16,6 +16,11 @@
 //! aromatic carbon has exactly one double bond); CBH-3 fragments can (butadiene versus
 //! 2-butene-type pieces), so a CBH-3 reaction of an aromatic molecule is one correct choice
 //! among several.
+//!
+//! Charges and valences are kept as written: a nitro group written `[N+](=O)[O-]` gives ionic
+//! pieces (`[OH-]`, `C[NH3+]`) at CBH-0 and CBH-1 and stays whole around N from CBH-2 on, and a
+//! hypervalent atom gives a hypervalent hydride (`[SH4]` from a sulfoxide at CBH-0). Such pieces
+//! have no reference values; pricing them needs a fallback or a higher rung.
 
 use petgraph::graph::NodeIndex;
 use petgraph::visit::EdgeRef;
@@ -25,11 +30,13 @@ use crate::molecule::canon::canonical_smiles;
 use crate::molecule::{Atom, Bond, BondOrder, Element, Molecule};
 
 /// A species of a reaction: a molecule and its canonical SMILES (the key that merges species).
-#[derive(Debug, Clone)]
+/// Two species are equal when their keys are; serialized, a species is its key.
+#[derive(Debug, Clone, serde::Serialize)]
 pub struct Species {
     /// Canonical SMILES ([`canonical_smiles`]).
     pub smiles: String,
     /// The molecule (fragments hold their hydrogens as counts, not nodes).
+    #[serde(skip)]
     pub molecule: Molecule,
 }
 

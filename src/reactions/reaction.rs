@@ -11,7 +11,7 @@ use super::fragment::Species;
 /// rebuild the target (acyclic molecules at the higher rungs), the target cancels: it is then
 /// absent from `reactants` ([`Reaction::target_cancelled`]), and the reaction is usually empty
 /// (heat zero). The target is also kept in `target` either way.
-#[derive(Debug, Clone)]
+#[derive(Debug, Clone, serde::Serialize)]
 pub struct Reaction {
     /// The rung that built it.
     pub rung: Rung,

@@ -28,7 +28,13 @@
 //! not for every regular graph; stereo marks other than tetrahedral `@`/`@@` (allene,
 //! square-planar, bipyramidal, octahedral classes) are not kept; double-bond geometry in rings
 //! of fewer than 8 atoms is not kept; resonance is perceived only over B, C, N, O, P, S, As
-//! and Se atoms at their lowest valence.
+//! and Se atoms at their lowest valence (a ring of another element keeps the input's Kekulé
+//! form); double bonds that are resonant (in a ring with alternating bonds, as in
+//! [16]annulene) lose their geometry; in a conjugated chain whose middle double bond is left
+//! unspecified between two specified ones, the written marks can specify the middle one too.
+//! Stereo tie-breaking compares candidates with one level of look-ahead, which settles
+//! para-type rings (1,4-dimethylcyclohexane, inositols, 1,3,5-trisubstituted cyclohexanes) but
+//! is not a proof of canonicity for every stereo graph.
 
 mod prepare;
 mod ranking;

@@ -70,27 +70,3 @@ fn long_chain_is_written_without_recursion() {
     let chain = "C".repeat(3000);
     assert_eq!(key(&chain), chain);
 }
-
-#[test]
-fn dev_scratch_remove_me() {
-    let Ok(text) = std::fs::read_to_string("/tmp/canon_in.txt") else {
-        return;
-    };
-    let mut out = String::new();
-    for line in text.lines() {
-        let (id, smi) = line.split_once('\t').unwrap();
-        let t = std::time::Instant::now();
-        let k = match parse_smiles(smi) {
-            Ok(m) => canonical_smiles(&m),
-            Err(e) => format!("ERR {e}").replace('\n', " "),
-        };
-        let again = parse_smiles(&k)
-            .map(|m| canonical_smiles(&m))
-            .unwrap_or_else(|e| format!("REPARSE-ERR {e}").replace('\n', " "));
-        out.push_str(&format!(
-            "{id}\t{smi}\t{k}\t{again}\t{}\n",
-            t.elapsed().as_micros()
-        ));
-    }
-    std::fs::write("/tmp/canon_out.txt", out).unwrap();
-}

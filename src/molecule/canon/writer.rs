@@ -113,6 +113,8 @@ fn direction_marks(p: &Prepared, stereo: &StereoSet, ranks: &[u32], l: &Layout) 
                 let tree = l.parent_bond[s] == e || l.parent_bond[end] == e;
                 list.push((e, -side * f, tree));
             }
+            // Candidates in writing order, so the choice below does not follow input order.
+            list.sort_by_key(|&(e, _, _)| l.pos[p.bonds[e].a] + l.pos[p.bonds[e].b]);
             ends.push(list);
         }
         let assigned = ends

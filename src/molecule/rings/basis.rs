@@ -225,7 +225,7 @@ fn candidates(core: &Core) -> Vec<Candidate> {
             let nearer: Vec<usize> = core.adjacency[y]
                 .iter()
                 .map(|&(u, _)| u)
-                .filter(|&u| u <= root && paths.distance[u] + 1 == dy)
+                .filter(|&u| u <= root && paths.distance[u] == dy - 1)
                 .collect();
             for (i, &a) in nearer.iter().enumerate() {
                 for &b in &nearer[i + 1..] {

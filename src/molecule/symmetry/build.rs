@@ -10,11 +10,12 @@ use petgraph::graph::NodeIndex;
 use std::collections::HashMap;
 
 use super::cage::orient_cage;
+use super::double_bonds::double_bond_units;
 use super::faces::{oriented_ring_steps, ring_centre_refs};
 use super::labelled::{Anchor, LabelledGraph, StereoUnit, UnitKind};
 use super::partition::Partition;
 use crate::molecule::aromaticity::perceive_aromaticity;
-use crate::molecule::graph::{BondDirection, ChiralTag, Molecule, StereoNeighbour};
+use crate::molecule::graph::{ChiralTag, Molecule, StereoNeighbour};
 use crate::molecule::rings::RingInfo;
 
 /// Bond colour shared by all aromatic bonds.
@@ -214,6 +215,14 @@ pub(crate) fn build(mol: &Molecule) -> Built {
         .units
         .iter()
         .filter(|u| !u.specified && u.kind != UnitKind::Cage)
+        .filter(|u| match u.anchor {
+            // A double bond inside a ring has its arrangement fixed by the ring.
+            Anchor::Bond(x, z) => mol
+                .graph
+                .find_edge(NodeIndex::new(x as usize), NodeIndex::new(z as usize))
+                .is_none_or(|e| !rings.is_ring_bond(e)),
+            Anchor::Atom(_) => true,
+        })
         .filter(|u| {
             let mut cells: Vec<u32> = u.refs.iter().map(|&r| root.cell_of[r as usize]).collect();
             cells.sort_unstable();
@@ -303,95 +312,4 @@ fn written_centre(
         refs.swap(2, 3);
     }
     Some(refs)
-}
-
-/// Which neighbour of `x` (among `pair`) is drawn "up" by `/` and `\` bonds, if written.
-fn up_neighbour(mol: &Molecule, x: u32, pair: [u32; 2]) -> Option<[u32; 2]> {
-    let n0 = mol.atom_count() as u32;
-    for (i, &p) in pair.iter().enumerate() {
-        if p >= n0 || x >= n0 {
-            continue;
-        }
-        let e = mol
-            .graph
-            .find_edge(NodeIndex::new(x as usize), NodeIndex::new(p as usize))?;
-        if let Some((from, d)) = mol.graph[e].direction {
-            let up = (d == BondDirection::Up) == (from.index() as u32 == x);
-            let other = pair[1 - i];
-            return Some(if up { [p, other] } else { [other, p] });
-        }
-    }
-    None
-}
-
-/// Adds a unit for every non-aromatic double bond or cumulene whose two ends have three
-/// neighbours each (lone pairs included), except inside cages.
-fn double_bond_units(
-    mol: &Molecule,
-    g: &mut LabelledGraph,
-    cage: &[bool],
-    by_cell: &dyn Fn(&mut Vec<u32>),
-) {
-    let n0 = mol.atom_count() as u32;
-    let double_to = |g: &LabelledGraph, x: u32| -> Vec<u32> {
-        g.adj[x as usize]
-            .iter()
-            .filter(|e| e.1 == 2)
-            .map(|e| e.0)
-            .collect()
-    };
-    let mut units = Vec::new();
-    for x in 0..n0 {
-        let dx = double_to(g, x);
-        if g.degree(x) != 3 || dx.len() != 1 || cage[x as usize] {
-            continue;
-        }
-        let (mut prev, mut cur) = (x, dx[0]);
-        let mut steps = 0;
-        while g.degree(cur) == 2 && double_to(g, cur).len() == 2 && steps < n0 {
-            let next = g.adj[cur as usize]
-                .iter()
-                .map(|e| e.0)
-                .find(|&w| w != prev)
-                .unwrap_or(prev);
-            prev = cur;
-            cur = next;
-            steps += 1;
-        }
-        let z = cur;
-        if z <= x || g.degree(z) != 3 || double_to(g, z).len() != 1 || cage[z as usize] {
-            continue;
-        }
-        let side = |end: u32, towards: u32| -> Vec<u32> {
-            let mut s: Vec<u32> = g.adj[end as usize]
-                .iter()
-                .map(|e| e.0)
-                .filter(|&w| w != towards)
-                .collect();
-            by_cell(&mut s);
-            s
-        };
-        let (sx, sz) = (side(x, dx[0]), side(z, prev));
-        let (Ok(px), Ok(pz)) = (<[u32; 2]>::try_from(sx), <[u32; 2]>::try_from(sz)) else {
-            continue;
-        };
-        let written = (steps % 2 == 0)
-            .then(|| Some((up_neighbour(mol, x, px)?, up_neighbour(mol, z, pz)?)))
-            .flatten();
-        let ((a, b), specified) = match written {
-            Some(w) => (w, true),
-            None => ((px, pz), false),
-        };
-        units.push(StereoUnit {
-            anchor: Anchor::Bond(x, z),
-            refs: vec![a[0], a[1], b[0], b[1]],
-            kind: if steps % 2 == 0 {
-                UnitKind::DoubleBond
-            } else {
-                UnitKind::Axial
-            },
-            specified,
-        });
-    }
-    g.units.extend(units);
 }

@@ -26,6 +26,7 @@
 
 mod build;
 mod cage;
+mod double_bonds;
 mod faces;
 mod labelled;
 mod partition;
@@ -167,7 +168,7 @@ pub fn symmetry_number_with(mol: &Molecule, options: &SymmetryOptions) -> Symmet
             .fold(1u128, |acc, r| acc.saturating_mul(r.symmetry)),
         Err(_) => 1,
     };
-    let (external, internal) = if internal > 0 && total % internal == 0 {
+    let (external, internal) = if internal > 0 && total.is_multiple_of(internal) {
         (total / internal, internal)
     } else {
         notes.push(
@@ -232,7 +233,7 @@ fn from_override(user: SymmetryOverride) -> SymmetryInfo {
     let total = user.total.max(1);
     let external = user
         .external
-        .filter(|&e| e > 0 && total % e == 0)
+        .filter(|&e| e > 0 && total.is_multiple_of(e))
         .unwrap_or(total);
     SymmetryInfo {
         external,

@@ -161,8 +161,8 @@ impl Partition {
         let mut key = vec![0u64; n];
         loop {
             loop {
-                for v in 0..n {
-                    key[v] = g.adj[v].iter().fold(0u64, |acc, &(w, c)| {
+                for (k, list) in key.iter_mut().zip(&g.adj) {
+                    *k = list.iter().fold(0u64, |acc, &(w, c)| {
                         acc.wrapping_add(mix(((self.cell_of[w as usize] as u64) << 8) | c as u64))
                     });
                 }

@@ -23,6 +23,9 @@ pub(crate) struct Folded {
     pub factor: u128,
 }
 
+/// A folded vertex's new colour is keyed by its old colour and the terminal sets it lost.
+type FoldKey = (u32, Vec<(u32, u8, u32)>);
+
 fn factorial(k: u32) -> u128 {
     (1..=k as u128).fold(1u128, |acc, x| acc.saturating_mul(x))
 }
@@ -49,7 +52,7 @@ pub(crate) fn fold_terminals(g: &LabelledGraph) -> Folded {
     let mut g = g.clone();
     let mut factor: u128 = 1;
     let mut next_colour = g.colour.iter().max().map_or(0, |m| m + 1);
-    let mut interned: HashMap<(u32, Vec<(u32, u8, u32)>), u32> = HashMap::new();
+    let mut interned: HashMap<FoldKey, u32> = HashMap::new();
     loop {
         let n = g.len() as u32;
         let sets: Vec<Vec<(u32, u8, u32)>> = (0..n)

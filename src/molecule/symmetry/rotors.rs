@@ -101,11 +101,7 @@ fn rotor_orbit(g: &LabelledGraph, a: u32, rotor: &[u32]) -> Result<u128, SearchL
     };
     let whole = order_with_fixed(&frag, &[fa])?;
     let stabilizer = order_with_fixed(&frag, &[fa, n])?;
-    Ok(if stabilizer == 0 {
-        1
-    } else {
-        whole / stabilizer
-    })
+    Ok(whole.checked_div(stabilizer).unwrap_or(1))
 }
 
 /// A rotor found: the bond and its symmetry number.
