@@ -199,6 +199,21 @@ fn group_additivity_matches_measured_gas_phase_data() {
             o.hf_err_kcal, o.name, o.cas, o.class
         );
     }
+    let mut worst_s: Vec<&Outcome> = outcomes.iter().filter(|o| o.s_err_cal.is_some()).collect();
+    worst_s.sort_by(|a, b| {
+        let key = |o: &Outcome| o.s_err_cal.map_or(0.0, f64::abs);
+        key(b).total_cmp(&key(a))
+    });
+    println!("10 largest S298 errors (estimate - measured, cal/(mol K)):");
+    for o in worst_s.iter().take(10) {
+        println!(
+            "  {:>+7.2}  {} ({}, {})",
+            o.s_err_cal.unwrap_or(0.0),
+            o.name,
+            o.cas,
+            o.class
+        );
+    }
     let mut reasons: std::collections::BTreeMap<String, usize> = Default::default();
     for (_, why) in &failures {
         let key: String = why.chars().take(60).collect();

@@ -589,8 +589,58 @@ def nan_to_none(x):
         return None
 
 
+# Cross-checks of the CRC entropy and heat capacity against the package's other tables. WEBBOOK
+# is not used (wrong matches for some species, see validation.md). A CRC value that another
+# source contradicts by more than these limits is left empty (our choice: about 2.5 cal/(mol K)
+# for S, about 1.2 cal/(mol K) for Cp, several times the scatter of sound data).
+MAX_S_DISAGREEMENT_J = 10.0
+MAX_CP_DISAGREEMENT_J = 5.0
+
+
+def entropy_cross_check(cas, s_crc):
+    """Other S0g values for `cas` (JANAF, Yaws) that contradict the CRC value."""
+    import chemicals.reaction as reaction
+
+    try:
+        methods = [m for m in reaction.S0g_methods(cas) if m in ("JANAF", "YAWS")]
+    except Exception:
+        return []
+    bad = []
+    for m in methods:
+        try:
+            other = reaction.S0g(cas, method=m)
+        except Exception:
+            continue
+        if other is not None and abs(other - s_crc) > MAX_S_DISAGREEMENT_J:
+            bad.append((m, other))
+    return bad
+
+
+def heat_capacity_cross_check(cas, cp_crc):
+    """Other Cp(298.15 K) values for `cas` (Poling table, TRC correlation) that contradict CRC."""
+    import chemicals.heat_capacity as hc
+
+    bad = []
+    if cas in hc.Cp_data_Poling.index:
+        other = nan_to_none(hc.Cp_data_Poling.loc[cas, "Cpg"])
+        if other is not None and abs(other - cp_crc) > MAX_CP_DISAGREEMENT_J:
+            bad.append(("Poling", other))
+    if cas in hc.TRC_gas_data.index:
+        row = hc.TRC_gas_data.loc[cas]
+        try:
+            if row["Tmin"] <= 298.15 <= row["Tmax"]:
+                coeffs = [row[k] for k in ("a0", "a1", "a2", "a3", "a4", "a5", "a6", "a7")]
+                other = hc.TRCCp(298.15, *coeffs)
+                if abs(other - cp_crc) > MAX_CP_DISAGREEMENT_J:
+                    bad.append(("TRC", other))
+        except Exception:
+            pass
+    return bad
+
+
 def make_thermo():
     from chemicals.heat_capacity import CRC_standard_data as crc
+    s_dropped, cp_dropped = [], []
 
     _, atct_kept, _ = read_atct()
     atct = {k["cas"]: k for k in atct_kept}
@@ -630,6 +680,18 @@ def make_thermo():
             hf, unc, src = crc_hf, None, "CRC"
         else:
             continue
+        s_crc = nan_to_none(crc_row["S0g"]) if crc_row is not None else None
+        if s_crc is not None:
+            bad = entropy_cross_check(cas, s_crc)
+            if bad:
+                s_dropped.append((cas, name, s_crc, bad))
+                s_crc = None
+        cp_crc = nan_to_none(crc_row["Cpg"]) if crc_row is not None else None
+        if cp_crc is not None:
+            bad = heat_capacity_cross_check(cas, cp_crc)
+            if bad:
+                cp_dropped.append((cas, name, cp_crc, bad))
+                cp_crc = None
         rows.append(
             {
                 "cas": cas,
@@ -638,8 +700,8 @@ def make_thermo():
                 "hf298_kj": fmt(hf, 2),
                 "hf298_unc_kj": fmt(unc, 3),
                 "hf_source": src,
-                "s298_j": fmt(nan_to_none(crc_row["S0g"]) if crc_row is not None else None, 2),
-                "cp298_j": fmt(nan_to_none(crc_row["Cpg"]) if crc_row is not None else None, 2),
+                "s298_j": fmt(s_crc, 2),
+                "cp298_j": fmt(cp_crc, 2),
                 "class": classify(mol),
                 "hetero": 1 if any(a.GetAtomicNum() != 6 for a in mol.GetAtoms()) else 0,
                 "elements": element_string(mol),
@@ -689,6 +751,18 @@ def make_thermo():
         "#   Same structure under two CAS numbers (kept only the formula-checked ATcT row if there",
         f"#   is exactly one), dropped ({len(dup)}):",
         *[f"#     {c} {n}: same structure as {o}" for c, n, o in dup],
+        f"# s298_j: CRC S0g, left empty where JANAF or Yaws (chemicals.reaction.S0g) differ by more",
+        f"#   than {MAX_S_DISAGREEMENT_J} J/(mol K) ({len(s_dropped)}):",
+        *[
+            f"#     {c} {n}: CRC {v:.1f}; " + ", ".join(f"{m} {o:.1f}" for m, o in bad)
+            for c, n, v, bad in s_dropped
+        ],
+        f"# cp298_j: CRC Cpg, left empty where the Poling table or the TRC correlation at 298.15 K",
+        f"#   differ by more than {MAX_CP_DISAGREEMENT_J} J/(mol K) ({len(cp_dropped)}):",
+        *[
+            f"#     {c} {n}: CRC {v:.1f}; " + ", ".join(f"{m} {o:.1f}" for m, o in bad)
+            for c, n, v, bad in cp_dropped
+        ],
         "# class counts: " + ", ".join(f"{k} {v}" for k, v in sorted(counts.items())),
         "# columns:",
         "#   cas; name (ATcT name if ATcT has it, else CRC); smiles (PubChem via chemicals);",

@@ -8,6 +8,7 @@ use crate::groups::interactions::count_interactions;
 use crate::groups::ring_corrections::{RingCorrectionIndex, RingMatch, RingPatternError};
 use crate::groups::table::{GroupTables, TableError, ThermoIncrement, CP_TEMPERATURES_K};
 use crate::groups::GroupKey;
+use crate::molecule::symmetry::symmetry_number;
 use crate::molecule::PerceivedMolecule;
 
 /// Extra uncertainty added to a group that stands in for a missing one: our choice, about the
@@ -33,13 +34,13 @@ pub struct SymmetryUsed {
 }
 
 fn graph_symmetry(p: &PerceivedMolecule) -> SymmetryUsed {
-    let _ = p;
+    let info = symmetry_number(&p.mol);
     SymmetryUsed {
-        total: 1,
-        external: 1,
-        internal: 1,
-        optical_isomers: 1,
-        notes: vec!["symmetry not yet computed (placeholder)".into()],
+        total: info.total,
+        external: info.external,
+        internal: info.internal,
+        optical_isomers: info.optical_isomers,
+        notes: info.notes,
     }
 }
 
