@@ -1,10 +1,11 @@
 //! Maintainer tool: derives groups and ring corrections that the published tables lack, each from
-//! one measured compound, and writes them to group-tables/groups-derived.toml and
-//! group-tables/rings-derived.toml.
+//! one measured compound, and writes them to group-tables/groups-derived.toml,
+//! group-tables/rings-derived.toml and group-tables/corrections-derived.toml.
 //!
 //! Rule (fixed in advance, independent of how well anything fits): a compound of
 //! tests/reference/thermo_reference.tsv qualifies when, with every other table entry present, it
-//! lacks exactly one group (or exactly one ring system and no group). For each missing entry the
+//! lacks exactly one group, or else exactly one kind of correction (e.g. `ortho-(F)2`), or else
+//! exactly one ring system. For each missing entry the
 //! compound with the fewest heavy atoms is used (ties: ATcT before CRC, then CAS number). The
 //! value is (measured - sum of the other terms) / occurrences. Rounds repeat until nothing new
 //! can be derived. The compounds used are named in `derived_from`, and the validation test leaves
@@ -130,6 +131,7 @@ fn main() {
     }
     let mut groups_out = String::new();
     let mut rings_out = String::new();
+    let mut corrections_out = String::new();
     let strict = EstimateOptions {
         strict: true,
         ..EstimateOptions::default()
@@ -140,6 +142,7 @@ fn main() {
         // Missing key -> (priority, reference index, occurrences).
         let mut group_candidates: BTreeMap<String, (Priority, usize, u32)> = BTreeMap::new();
         let mut ring_candidates: Vec<(Priority, usize)> = Vec::new();
+        let mut correction_candidates: BTreeMap<String, (Priority, usize, u32)> = BTreeMap::new();
         for (i, r) in refs.iter().enumerate() {
             if used.contains(&r.cas) {
                 continue;
@@ -154,6 +157,15 @@ fn main() {
                     let better = group_candidates.get(&key).is_none_or(|c| cand.0 < c.0);
                     if better {
                         group_candidates.insert(key, cand);
+                    }
+                }
+                Err(EstimateError::MissingCorrections(m)) if m.len() == 1 => {
+                    let cand = (priority(r), i, m[0].1);
+                    let better = correction_candidates
+                        .get(&m[0].0)
+                        .is_none_or(|c| cand.0 < c.0);
+                    if better {
+                        correction_candidates.insert(m[0].0.clone(), cand);
                     }
                 }
                 Err(EstimateError::MissingRings(1)) if correction_skeletons(&p).len() == 1 => {
@@ -176,7 +188,8 @@ fn main() {
                 ring_chosen.push(*i);
             }
         }
-        if group_candidates.is_empty() && ring_chosen.is_empty() {
+        if group_candidates.is_empty() && ring_chosen.is_empty() && correction_candidates.is_empty()
+        {
             println!("round {round}: nothing more to derive");
             break;
         }
@@ -187,6 +200,13 @@ fn main() {
                 placeholder,
                 "\n[[group]]\nkey = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\nsource = \"placeholder\"",
                 toml_string(key)
+            );
+        }
+        for name in correction_candidates.keys() {
+            let _ = writeln!(
+                placeholder,
+                "\n[[correction]]\nname = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\ncounting = \"placeholder\"\nsource = \"placeholder\"",
+                toml_string(name)
             );
         }
         for (n, i) in ring_chosen.iter().enumerate() {
@@ -201,6 +221,7 @@ fn main() {
             .expect("placeholder rings");
         let mut derived_groups = String::new();
         let mut derived_rings = String::new();
+        let mut derived_corrections = String::new();
         let mut count = 0;
         let emit = |out: &mut String, head: &str, r: &Reference, n: u32| -> bool {
             let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
@@ -247,6 +268,21 @@ fn main() {
                 count += 1;
             }
         }
+        for (name, (_, i, n)) in &correction_candidates {
+            let r = &refs[*i];
+            let head = format!(
+                "[[correction]]\nname = {}\ncounting = {}",
+                toml_string(name),
+                toml_string(
+                    "as the code counts it (src/groups/interactions.rs): per occurrence of this \
+                     interaction type"
+                )
+            );
+            if emit(&mut derived_corrections, &head, r, *n) {
+                used.insert(r.cas.clone());
+                count += 1;
+            }
+        }
         for i in &ring_chosen {
             let r = &refs[*i];
             let head = format!(
@@ -261,6 +297,12 @@ fn main() {
         }
         let _ = std::fs::remove_file(work.join("zz-placeholder.toml"));
         groups_out.push_str(&derived_groups);
+        corrections_out.push_str(&derived_corrections);
+        std::fs::write(
+            work.join("corrections-derived.toml"),
+            format!("{META}{corrections_out}"),
+        )
+        .expect("write");
         rings_out.push_str(&derived_rings);
         std::fs::write(
             work.join("groups-derived.toml"),
@@ -292,5 +334,10 @@ fn main() {
         format!("{}{META}{rings_out}", header("Ring corrections")),
     )
     .expect("write rings-derived.toml");
-    println!("wrote group-tables/groups-derived.toml and group-tables/rings-derived.toml");
+    std::fs::write(
+        tables_dir.join("corrections-derived.toml"),
+        format!("{}{META}{corrections_out}", header("Non-ring corrections")),
+    )
+    .expect("write corrections-derived.toml");
+    println!("wrote group-tables/{{groups,rings,corrections}}-derived.toml");
 }

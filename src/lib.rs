@@ -16,9 +16,11 @@
 //! assert!((estimate.hf298_kj.value - 53.3).abs() < 5.0);
 //! ```
 
+pub mod computed;
 pub mod groups;
 pub mod input;
 pub mod molecule;
 pub mod reactions;
+pub mod strain;
 pub mod report;
 pub mod thermo;

@@ -638,9 +638,28 @@ def heat_capacity_cross_check(cas, cp_crc):
     return bad
 
 
+# A CRC-only heat of formation is cross-checked against the NIST WebBook column the package also
+# carries. WebBook is never used as a value (it has wrong matches, see validation.md); where the
+# two disagree by more than this, nobody here can tell which is right, so the species is dropped.
+# Our choice: about 2 kcal/mol, beyond the scatter of sound measurements.
+MAX_CRC_WEBBOOK_DISAGREEMENT_KJ = 8.0
+
+
+def webbook_hf(cas):
+    """The WebBook gas Hf298 (kJ/mol) the chemicals package carries for `cas`, if any."""
+    import chemicals.reaction as reaction
+
+    try:
+        if "WEBBOOK" not in reaction.Hfg_methods(cas):
+            return None
+        return reaction.Hfg(cas, method="WEBBOOK") / 1000.0
+    except Exception:
+        return None
+
+
 def make_thermo():
     from chemicals.heat_capacity import CRC_standard_data as crc
-    s_dropped, cp_dropped = [], []
+    s_dropped, cp_dropped, webbook_dropped = [], [], []
 
     _, atct_kept, _ = read_atct()
     atct = {k["cas"]: k for k in atct_kept}
@@ -678,6 +697,10 @@ def make_thermo():
                 unverified.append((cas, name, smiles))
                 continue
             hf, unc, src = crc_hf, None, "CRC"
+            wb = webbook_hf(cas)
+            if wb is not None and abs(wb - crc_hf) > MAX_CRC_WEBBOOK_DISAGREEMENT_KJ:
+                webbook_dropped.append((cas, name, crc_hf, wb))
+                continue
         else:
             continue
         s_crc = nan_to_none(crc_row["S0g"]) if crc_row is not None else None
@@ -734,8 +757,8 @@ def make_thermo():
         "# sources: chemicals package: CRC Handbook table chemicals.heat_capacity.CRC_standard_data",
         "#   (file 'Heat Capacity/CRC Standard Thermodynamic Properties of Chemical Substances.tsv',",
         f"#   columns Hfg J/mol, S0g J/(mol K), Cpg J/(mol K)) and '{ATCT_TABLE}' (Hfg, uncertainty);",
-        "#   SMILES from chemicals.identifiers.search_chemical(CAS).smiles. API TDB, WEBBOOK and TRC",
-        "#   values are not used (see validation.md).",
+        "#   SMILES from chemicals.identifiers.search_chemical(CAS).smiles. API TDB and TRC",
+        "#   values are not used, and WEBBOOK only as a cross-check (see validation.md).",
         *versions_header(),
         "# selection: every CAS with a CRC Hfg or an ATcT 1.112 gas entry (ATcT rows only when the",
         "#   looked-up SMILES matches the ATcT formula); one component, net charge 0, no radical",
@@ -745,6 +768,9 @@ def make_thermo():
         f"#   Species where CRC and ATcT differ by more than {MAX_SOURCE_DISAGREEMENT_KJ} kJ/mol are",
         f"#   dropped ({len(disagree)}):",
         *[f"#     {c} {n}: ATcT {a:.2f}, CRC {b:.2f} kJ/mol" for c, n, a, b in disagree],
+        f"#   CRC-only rows where the package's WebBook column differs from CRC by more than",
+        f"#   {MAX_CRC_WEBBOOK_DISAGREEMENT_KJ} kJ/mol (WebBook is used only as this check), dropped ({len(webbook_dropped)}):",
+        *[f"#     {c} {n}: CRC {a:.2f}, WebBook {b:.2f} kJ/mol" for c, n, a, b in webbook_dropped],
         "#   CRC-only rows whose CRC name is not among the identifier table's names for the CAS",
         f"#   number (structure unverified), dropped ({len(unverified)}):",
         *[f"#     {c} {n}: looked-up SMILES {sm}" for c, n, sm in unverified],

@@ -1,5 +1,5 @@
 #!/usr/bin/env python3
-"""Write reference-data/reference-species.toml from tests/reference/atct_small_species.tsv.
+"""Write group-tables/reference/reference-species.toml from tests/reference/atct_small_species.tsv.
 
 The TSV (made by tools/make_reference.py) holds Active Thermochemical Tables 1.112 gas-phase
 heats of formation as the `chemicals` package carries them. This script only reformats the rows
@@ -18,7 +18,7 @@ from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
 SOURCE = ROOT / "tests" / "reference" / "atct_small_species.tsv"
-TARGET = ROOT / "reference-data" / "reference-species.toml"
+TARGET = ROOT / "group-tables" / "reference" / "reference-species.toml"
 NOBLE = {"He", "Ne", "Ar", "Kr", "Xe", "Rn"}
 
 

@@ -2,6 +2,7 @@
 
 mod estimate;
 mod inputs;
+mod strain;
 mod structure;
 
 use std::process::ExitCode;
@@ -22,6 +23,8 @@ enum Command {
     Structure(structure::StructureArgs),
     /// Group-additivity Hf298, S298 and Cp(T) of each input molecule, with uncertainties.
     Estimate(estimate::EstimateArgs),
+    /// Strain energy by every scheme (group increments, CBH-2, CBH-3), side by side.
+    Strain(strain::StrainArgs),
 }
 
 /// Runs the command line. Bad records become error rows; only unusable options or tables fail.
@@ -30,5 +33,6 @@ pub fn run() -> Result<ExitCode, Box<dyn std::error::Error>> {
     match cli.command {
         Command::Structure(args) => structure::run(args),
         Command::Estimate(args) => estimate::run(args),
+        Command::Strain(args) => strain::run(args),
     }
 }

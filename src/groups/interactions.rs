@@ -11,7 +11,11 @@
 //! - `cis`: for every acyclic C=C, the pairs of non-hydrogen substituents on the same side: one
 //!   for a trisubstituted bond, two for a tetrasubstituted one, and for a 1,2-disubstituted bond
 //!   one if written Z, none if written E or unspecified (then flagged as assumed E).
-//! - `ortho`: for every bond between two `Cb` atoms that both carry a non-hydrogen substituent.
+//!   A cis pair with one tert-butyl is `cis-tert-butyl`, with two `cis-di-tert-butyl` (each
+//!   falls back to `cis` when the tables lack it).
+//! - `ortho`: for every bond between two `Cb` atoms that both carry a non-hydrogen substituent;
+//!   two alkyl carbons give Benson's `ortho`, other pairs `ortho-(X)(Y)` with the substituent
+//!   types in the fixed ligand order (e.g. `ortho-(F)2`, `ortho-(C)(Cl)`), falling back to `ortho`.
 
 use petgraph::graph::NodeIndex;
 
@@ -22,9 +26,11 @@ use crate::molecule::{BondDirection, BondOrder, Element, PerceivedMolecule};
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub struct InteractionCount {
     /// Correction name as in the tables.
-    pub name: &'static str,
+    pub name: String,
     /// Occurrences.
     pub count: u32,
+    /// The more general correction that stands in when the tables lack `name`.
+    pub fallback: Option<&'static str>,
 }
 
 /// All counted interactions and notes about assumptions made.
@@ -34,6 +40,22 @@ pub struct Interactions {
     pub counts: Vec<InteractionCount>,
     /// Assumptions (unspecified double-bond geometry, ...).
     pub notes: Vec<String>,
+}
+
+impl Interactions {
+    fn add(&mut self, name: &str, fallback: Option<&'static str>, n: u32) {
+        if n == 0 {
+            return;
+        }
+        match self.counts.iter_mut().find(|c| c.name == name) {
+            Some(c) => c.count += n,
+            None => self.counts.push(InteractionCount {
+                name: name.to_string(),
+                count: n,
+                fallback,
+            }),
+        }
+    }
 }
 
 fn is_sp3_carbon(types: &AtomTypes, i: NodeIndex) -> bool {
@@ -54,14 +76,45 @@ fn carbon_substituents_except(p: &PerceivedMolecule, i: NodeIndex, except: NodeI
         .count()
 }
 
+/// Whether `x`, bonded to `from`, is a tert-butyl group C(CH3)3.
+fn is_tert_butyl(p: &PerceivedMolecule, types: &AtomTypes, x: NodeIndex, from: NodeIndex) -> bool {
+    let mol = &p.mol;
+    if !is_sp3_carbon(types, x) || mol.atom(x).hydrogens != 0 {
+        return false;
+    }
+    let methyls = mol
+        .neighbours(x)
+        .filter(|(n, _)| *n != from)
+        .filter(|(n, _)| {
+            mol.atom(*n).element == Element::C && mol.atom(*n).hydrogens == 3 && mol.degree(*n) == 1
+        })
+        .count();
+    methyls == 3 && mol.degree(x) == 4
+}
+
+/// Correction name for one cis pair: by how many of the two are tert-butyl.
+fn cis_name(tert_butyls: usize) -> &'static str {
+    match tert_butyls {
+        0 => "cis",
+        1 => "cis-tert-butyl",
+        _ => "cis-di-tert-butyl",
+    }
+}
+
+/// Correction name for an ortho pair of substituent types: Benson's `ortho` for two alkyl
+/// carbons, else `ortho-(X)(Y)` in the fixed ligand order.
+fn ortho_name(x: &str, y: &str) -> String {
+    if x == "C" && y == "C" {
+        return "ortho".to_string();
+    }
+    let key = super::key::GroupKey::new("ortho", &[x, y]);
+    key.to_string()
+}
+
 /// Counts every interaction named in the module docs.
 pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interactions {
     let mol = &p.mol;
-    let mut gauche = 0u32;
-    let mut one_five = 0u32;
-    let mut cis = 0u32;
-    let mut ortho = 0u32;
-    let mut notes = Vec::new();
+    let mut out = Interactions::default();
     for e in mol.graph.edge_indices() {
         let Some((a, b)) = mol.graph.edge_endpoints(e) else {
             continue;
@@ -72,51 +125,35 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
             BondOrder::Single if !in_ring && is_sp3_carbon(types, a) && is_sp3_carbon(types, b) => {
                 let n1 = carbon_substituents_except(p, a, b) as u32;
                 let n2 = carbon_substituents_except(p, b, a) as u32;
-                gauche += n1 * n2 - n1.min(n2);
+                out.add("gauche", None, n1 * n2 - n1.min(n2));
             }
             _ if types.centre(a) == Some("Cb")
                 && types.centre(b) == Some("Cb")
                 && bond.aromatic =>
             {
-                let substituted = |x: NodeIndex, other: NodeIndex| {
-                    mol.neighbours(x).any(|(n, nb)| {
-                        n != other && !nb.aromatic && mol.atom(n).element != Element::H
-                    })
+                let substituent = |x: NodeIndex, other: NodeIndex| {
+                    mol.neighbours(x)
+                        .find(|(n, nb)| {
+                            *n != other && !nb.aromatic && mol.atom(*n).element != Element::H
+                        })
+                        .map(|(n, _)| n)
                 };
-                if substituted(a, b) && substituted(b, a) {
-                    ortho += 1;
+                if let (Some(sa), Some(sb)) = (substituent(a, b), substituent(b, a)) {
+                    let name = ortho_name(types.ligand_name(sa), types.ligand_name(sb));
+                    let fallback = (name != "ortho").then_some("ortho");
+                    out.add(&name, fallback, 1);
                 }
             }
             BondOrder::Double
                 if !in_ring && types.centre(a) == Some("Cd") && types.centre(b) == Some("Cd") =>
             {
-                let subs = |x: NodeIndex, other: NodeIndex| -> Vec<NodeIndex> {
-                    mol.neighbours(x)
-                        .filter(|(n, _)| *n != other && mol.atom(*n).element != Element::H)
-                        .map(|(n, _)| n)
-                        .collect()
-                };
-                let (sa, sb) = (subs(a, b), subs(b, a));
-                match (sa.len(), sb.len()) {
-                    (2, 2) => cis += 2,
-                    (2, 1) | (1, 2) => cis += 1,
-                    (1, 1) => match double_bond_geometry(p, a, sa[0], b, sb[0]) {
-                        Some(true) => cis += 1,
-                        Some(false) => {}
-                        None => notes.push(format!(
-                            "double bond between atoms {} and {} has no geometry in the input: \
-                             taken as E (trans), no cis correction",
-                            a.index() + 1,
-                            b.index() + 1
-                        )),
-                    },
-                    _ => {}
-                }
+                count_cis(p, types, a, b, &mut out);
             }
             _ => {}
         }
     }
     // 1,5 interactions around every sp3 carbon M.
+    let mut one_five = 0u32;
     for m in mol.atoms() {
         if !is_sp3_carbon(types, m) {
             continue;
@@ -136,17 +173,76 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
             }
         }
     }
-    let counts = [
-        ("gauche", gauche),
-        ("1,5-interaction", one_five),
-        ("cis", cis),
-        ("ortho", ortho),
-    ]
-    .into_iter()
-    .filter(|(_, c)| *c > 0)
-    .map(|(name, count)| InteractionCount { name, count })
-    .collect();
-    Interactions { counts, notes }
+    out.add("1,5-interaction", None, one_five);
+    out
+}
+
+/// Cis pairs across the acyclic double bond a=b, with tert-butyl pairs named apart. Where the
+/// input gives no geometry the most stable arrangement (fewest and mildest cis pairs) is taken.
+fn count_cis(
+    p: &PerceivedMolecule,
+    types: &AtomTypes,
+    a: NodeIndex,
+    b: NodeIndex,
+    out: &mut Interactions,
+) {
+    let mol = &p.mol;
+    let subs = |x: NodeIndex, other: NodeIndex| -> Vec<NodeIndex> {
+        mol.neighbours(x)
+            .filter(|(n, _)| *n != other && mol.atom(*n).element != Element::H)
+            .map(|(n, _)| n)
+            .collect()
+    };
+    let (sa, sb) = (subs(a, b), subs(b, a));
+    if sa.is_empty() || sb.is_empty() {
+        return;
+    }
+    let tb = |x: NodeIndex, from: NodeIndex| usize::from(is_tert_butyl(p, types, x, from));
+    // Each candidate arrangement: the cis pairs (substituent on a, substituent on b).
+    let arrangements: Vec<Vec<(NodeIndex, NodeIndex)>> = match (sa.len(), sb.len()) {
+        (1, 1) => vec![vec![(sa[0], sb[0])], vec![]],
+        (2, 1) => vec![vec![(sa[0], sb[0])], vec![(sa[1], sb[0])]],
+        (1, 2) => vec![vec![(sa[0], sb[0])], vec![(sa[0], sb[1])]],
+        (2, 2) => vec![
+            vec![(sa[0], sb[0]), (sa[1], sb[1])],
+            vec![(sa[0], sb[1]), (sa[1], sb[0])],
+        ],
+        _ => return,
+    };
+    let known = arrangements.iter().position(|pairs| match pairs.first() {
+        Some(&(x, y)) => double_bond_geometry(p, a, x, b, y) == Some(true),
+        None => {
+            // The (1,1) trans case: known when the input says trans.
+            double_bond_geometry(p, a, sa[0], b, sb[0]) == Some(false)
+        }
+    });
+    let cost = |pairs: &Vec<(NodeIndex, NodeIndex)>| -> usize {
+        pairs
+            .iter()
+            .map(|&(x, y)| 1 + 10 * (tb(x, a) + tb(y, b)))
+            .sum()
+    };
+    let chosen = match known {
+        Some(i) => i,
+        None => {
+            if sa.len() == 1 && sb.len() == 1 {
+                out.notes.push(format!(
+                    "double bond between atoms {} and {} has no geometry in the input: taken \
+                     as E (trans), no cis correction",
+                    a.index() + 1,
+                    b.index() + 1
+                ));
+            }
+            (0..arrangements.len())
+                .min_by_key(|&i| cost(&arrangements[i]))
+                .unwrap_or(0)
+        }
+    };
+    for &(x, y) in &arrangements[chosen] {
+        let name = cis_name(tb(x, a) + tb(y, b));
+        let fallback = (name != "cis").then_some("cis");
+        out.add(name, fallback, 1);
+    }
 }
 
 /// Whether substituents `sa` (on `a`) and `sb` (on `b`) are cis across the double bond a=b, from

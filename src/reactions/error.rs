@@ -91,4 +91,14 @@ pub enum ReferenceError {
         /// What is wrong.
         problem: String,
     },
+    /// Two entries (possibly in two files) describe the same structure.
+    #[error("{key}: the reference table holds it twice: {first} and {second}")]
+    Duplicate {
+        /// Canonical SMILES.
+        key: String,
+        /// The first entry (name, SMILES, file).
+        first: String,
+        /// The second entry.
+        second: String,
+    },
 }

@@ -1,8 +1,16 @@
 //! Reference species: measured gas-phase Hf298 of small molecules, keyed by canonical SMILES.
 //!
-//! The bundled table is `reference-data/reference-species.toml` (written by
-//! `tools/make_reference_species.py` from Active Thermochemical Tables 1.112 values carried by
-//! the `chemicals` package). Each entry gives `smiles`, `name`, `hf298_kj`, `unc_kj` and
+//! The bundled table is three files of `group-tables/reference/` (a sub-directory, which the
+//! group-table loader does not read), embedded at compile time:
+//! - `reference-species.toml`: small molecules, Active Thermochemical Tables 1.112 values carried
+//!   by the `chemicals` package (written by `tools/make_reference_species.py`);
+//! - `ring-species.toml`: ring compounds, ATcT where the package has them, else CRC Handbook
+//!   values with an assumed uncertainty (written by `tools/make_ring_species.py`); these give the
+//!   measured Hf298 of a strain target;
+//! - `ring-species-recalled.toml`: a few strained ring compounds the package lacks (cubane, ...),
+//!   typed by hand from published measurements recalled from memory, each saying so.
+//!
+//! Each entry gives `smiles`, `name`, `hf298_kj`, `unc_kj` and
 //! `source` (all required) and optionally `cas` and `note`. Keys are the canonical SMILES of the
 //! entry's structure, computed at load, so the file may spell a molecule any way.
 //!
@@ -28,10 +36,21 @@ use crate::molecule::parse_smiles;
 use crate::molecule::PerceivedMolecule;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity};
 
-/// Path label of the bundled table (relative to the crate root).
-pub const BUNDLED_REFERENCE_PATH: &str = "reference-data/reference-species.toml";
-
-const BUNDLED_TEXT: &str = include_str!("../../reference-data/reference-species.toml");
+/// The bundled table files: (path relative to the crate root, contents).
+pub const BUNDLED_REFERENCE_FILES: [(&str, &str); 3] = [
+    (
+        "group-tables/reference/reference-species.toml",
+        include_str!("../../group-tables/reference/reference-species.toml"),
+    ),
+    (
+        "group-tables/reference/ring-species.toml",
+        include_str!("../../group-tables/reference/ring-species.toml"),
+    ),
+    (
+        "group-tables/reference/ring-species-recalled.toml",
+        include_str!("../../group-tables/reference/ring-species-recalled.toml"),
+    ),
+];
 
 /// One reference species.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
@@ -48,6 +67,10 @@ pub struct ReferenceSpecies {
     pub hf298_kj: Quantity,
     /// Where the value comes from.
     pub source: String,
+    /// Remark of the file (an assumed uncertainty, a later measurement), if any.
+    pub note: Option<String>,
+    /// The file the entry was read from.
+    pub file: String,
 }
 
 /// Reference species by canonical SMILES.
@@ -76,14 +99,32 @@ struct RawSpecies {
     unc_kj: Option<f64>,
     source: Option<String>,
     /// Free text for the reader of the file.
-    #[allow(dead_code)]
     note: Option<String>,
 }
 
 impl ReferenceTable {
-    /// The table bundled with the library.
+    /// The table bundled with the library (all of [`BUNDLED_REFERENCE_FILES`]).
     pub fn bundled() -> Result<ReferenceTable, ReferenceError> {
-        ReferenceTable::from_toml(BUNDLED_TEXT, Path::new(BUNDLED_REFERENCE_PATH))
+        let mut table = ReferenceTable::default();
+        for (path, text) in BUNDLED_REFERENCE_FILES {
+            table.extend(ReferenceTable::from_toml(text, Path::new(path))?)?;
+        }
+        Ok(table)
+    }
+
+    /// Adds the entries of `other`; a structure both tables hold is an error naming both entries.
+    pub fn extend(&mut self, other: ReferenceTable) -> Result<(), ReferenceError> {
+        for (key, entry) in other.entries {
+            if let Some(first) = self.entries.get(&key) {
+                return Err(ReferenceError::Duplicate {
+                    key,
+                    first: format!("{} ({}, {})", first.name, first.smiles, first.file),
+                    second: format!("{} ({}, {})", entry.name, entry.smiles, entry.file),
+                });
+            }
+            self.entries.insert(key, entry);
+        }
+        Ok(())
     }
 
     /// Reads a table file.
@@ -113,7 +154,7 @@ impl ReferenceTable {
                 smiles: smiles.clone(),
                 problem,
             };
-            let item = read_entry(r).map_err(&fail)?;
+            let item = read_entry(r, path).map_err(&fail)?;
             if let Some(first) = entries.insert(item.key.clone(), item) {
                 return Err(fail(format!(
                     "same structure as the entry for {} ({})",
@@ -155,7 +196,7 @@ impl ReferenceTable {
     }
 }
 
-fn read_entry(r: RawSpecies) -> Result<ReferenceSpecies, String> {
+fn read_entry(r: RawSpecies, path: &Path) -> Result<ReferenceSpecies, String> {
     let smiles = r.smiles.ok_or("no smiles")?;
     let name = r.name.ok_or("no name")?;
     let source = r.source.ok_or("no source")?;
@@ -174,6 +215,8 @@ fn read_entry(r: RawSpecies) -> Result<ReferenceSpecies, String> {
         cas: r.cas,
         hf298_kj: Quantity::new(value, uncertainty),
         source,
+        note: r.note,
+        file: path.display().to_string(),
     })
 }
 

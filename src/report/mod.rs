@@ -1,5 +1,6 @@
 //! Reports: turns results into tables, JSON or CSV; every input record becomes one row.
 
+pub mod strain;
 pub mod structure;
 pub mod thermo;
 

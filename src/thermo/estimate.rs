@@ -99,6 +99,9 @@ pub enum EstimateError {
     /// Groups missing from the tables, with no stand-in either.
     #[error("groups not in the tables: {}", describe_missing(.0))]
     MissingGroups(Vec<MissingGroup>),
+    /// Corrections missing from the tables (strict mode only: otherwise stand-ins apply).
+    #[error("corrections not in the tables: {}", .0.iter().map(|(n, c)| format!("{c} x {n}")).collect::<Vec<_>>().join(", "))]
+    MissingCorrections(Vec<(String, u32)>),
     /// Ring systems missing from the ring tables (strict mode only: otherwise stand-ins apply).
     #[error("{0} ring system(s) not in the ring tables (strict mode: no stand-ins)")]
     MissingRings(usize),
@@ -301,21 +304,45 @@ impl GroupAdditivity {
         // Non-ring corrections.
         let interactions = count_interactions(p, &assignment.types);
         flags.extend(interactions.notes);
+        let mut missing_corrections: Vec<(String, u32)> = Vec::new();
         for c in interactions.counts {
-            match self.tables.correction(c.name) {
-                Some(entry) => terms.push(Term {
+            let exact = self.tables.correction(&c.name);
+            let stand_in = c
+                .fallback
+                .filter(|_| !options.strict)
+                .and_then(|f| self.tables.correction(f));
+            match (exact, stand_in) {
+                (Some(entry), _) => terms.push(Term {
                     kind: TermKind::Correction,
-                    label: c.name.to_string(),
+                    label: c.name.clone(),
                     count: c.count,
                     per_unit: entry.values,
                     source: entry.source.clone(),
                     note: None,
                 }),
-                None => flags.push(format!(
+                (None, Some(entry)) => {
+                    flags.push(format!(
+                        "correction {} is not in the tables; {} stands in",
+                        c.name, entry.name
+                    ));
+                    terms.push(Term {
+                        kind: TermKind::Correction,
+                        label: c.name.clone(),
+                        count: c.count,
+                        per_unit: inflate(entry.values, STAND_IN_EXTRA_UNC),
+                        source: entry.source.clone(),
+                        note: Some(format!("stand-in: {}", entry.name)),
+                    });
+                }
+                (None, None) if options.strict => missing_corrections.push((c.name, c.count)),
+                (None, None) => flags.push(format!(
                     "{} x {} counted, but the tables have no `{}` correction: not applied",
                     c.count, c.name, c.name
                 )),
             }
+        }
+        if !missing_corrections.is_empty() {
+            return Err(EstimateError::MissingCorrections(missing_corrections));
         }
 
         // Ring corrections.
