@@ -21,6 +21,6 @@ pub mod groups;
 pub mod input;
 pub mod molecule;
 pub mod reactions;
-pub mod strain;
 pub mod report;
+pub mod strain;
 pub mod thermo;

@@ -1,7 +1,9 @@
 //! Argument parsing and the subcommands; each command reads input, calls the library, prints.
 
+mod check_computed;
 mod estimate;
 mod inputs;
+mod reactions;
 mod strain;
 mod structure;
 
@@ -25,6 +27,10 @@ enum Command {
     Estimate(estimate::EstimateArgs),
     /// Strain energy by every scheme (group increments, CBH-2, CBH-3), side by side.
     Strain(strain::StrainArgs),
+    /// CBH-0 to CBH-3 reactions of each molecule; with --rung, a template of enthalpies to compute.
+    Reactions(reactions::ReactionsArgs),
+    /// Hf298 and strain of one molecule from a file of computed enthalpies for one CBH reaction.
+    CheckComputed(check_computed::CheckComputedArgs),
 }
 
 /// Runs the command line. Bad records become error rows; only unusable options or tables fail.
@@ -34,5 +40,7 @@ pub fn run() -> Result<ExitCode, Box<dyn std::error::Error>> {
         Command::Structure(args) => structure::run(args),
         Command::Estimate(args) => estimate::run(args),
         Command::Strain(args) => strain::run(args),
+        Command::Reactions(args) => reactions::run(args),
+        Command::CheckComputed(args) => check_computed::run(args),
     }
 }

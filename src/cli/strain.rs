@@ -49,8 +49,9 @@ pub fn run(args: StrainArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
             }
             let unc = args.hf298_unc.unwrap_or(0.0);
             if !v.is_finite() || !unc.is_finite() || unc < 0.0 {
-                return Err("--hf298 and --hf298-unc must be finite, the uncertainty not negative"
-                    .into());
+                return Err(
+                    "--hf298 and --hf298-unc must be finite, the uncertainty not negative".into(),
+                );
             }
             Some(Quantity::new(v * to_kj, unc * to_kj))
         }

@@ -328,3 +328,35 @@ pub fn read_energies(path: &std::path::Path) -> Result<EnergiesFile, EnergiesErr
     })?;
     parse_energies(&text, &file)
 }
+
+/// A fill-in file for `reaction`: one line per species with `?` for the value, the given unit,
+/// and the species' role as a note. Filled in, it reads back with [`parse_energies`].
+pub fn template(reaction: &crate::reactions::Reaction, unit: InputUnit) -> String {
+    let width = reaction
+        .signed_terms()
+        .map(|(s, _)| s.smiles.len())
+        .max()
+        .unwrap_or(0);
+    let mut out = format!(
+        "# ringheat computed enthalpies for {} ({}): {}\n\
+         # Replace each ? by the species' enthalpy at 298.15 K (electronic energy plus thermal\n\
+         # enthalpy correction), all from one method. One unit for the file: hartree, kJ/mol\n\
+         # or kcal/mol. Any SMILES spelling of a species will do.\n",
+        reaction.target.smiles, reaction.rung, reaction
+    );
+    for (species, coefficient) in reaction.signed_terms() {
+        let role = if species.smiles == reaction.target.smiles {
+            "target".to_string()
+        } else if coefficient < 0 {
+            format!("co-reactant x {}", -coefficient)
+        } else {
+            format!("product x {coefficient}")
+        };
+        out.push_str(&format!(
+            "{:<width$}  ?  {}  # {role}\n",
+            species.smiles,
+            unit.word()
+        ));
+    }
+    out
+}

@@ -1,5 +1,7 @@
 //! Reports: turns results into tables, JSON or CSV; every input record becomes one row.
 
+pub mod computed;
+pub mod reactions;
 pub mod strain;
 pub mod structure;
 pub mod thermo;

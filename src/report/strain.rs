@@ -205,8 +205,7 @@ fn slug(name: &str) -> String {
     } else {
         lower
             .split(|c: char| !c.is_ascii_alphanumeric())
-            .filter(|w| !w.is_empty() && *w != "group" && *w != "strain")
-            .next()
+            .find(|w| !w.is_empty() && *w != "group" && *w != "strain")
             .unwrap_or("scheme")
             .to_string()
     }
@@ -270,7 +269,13 @@ pub fn render_csv(rows: &[Row<StrainRow>], unit: EnergyUnit) -> String {
                 let systems: Vec<String> = a
                     .ring_systems
                     .iter()
-                    .map(|s| format!("{}:{}", join(&s.ring_sizes), cell(Some(s.strain_kj.value * f), 3)))
+                    .map(|s| {
+                        format!(
+                            "{}:{}",
+                            join(&s.ring_sizes),
+                            cell(Some(s.strain_kj.value * f), 3)
+                        )
+                    })
                     .collect();
                 v.push(systems.join(" "));
                 v.push(a.flags.join(" | "));

@@ -182,10 +182,10 @@ fn temperature_tables(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
         for s in &r.states {
             t.add_row(vec![
                 cell(Some(s.t_k), 2),
-                cell(Some(s.cp_j * f), 2),
+                pm(Some(Quantity::new(s.cp_j, s.cp_unc_j)), f, 2),
                 cell(Some(s.dh_kj * f), 3),
-                cell(Some(s.s_j * f), 2),
-                cell(Some(s.g_kj * f), 3),
+                pm(Some(Quantity::new(s.s_j, s.s_unc_j)), f, 2),
+                pm(Some(Quantity::new(s.g_kj, s.g_unc_kj)), f, 2),
             ]);
         }
         out.push_str(&format!("{}\n{t}\n", title(r)));

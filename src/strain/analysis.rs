@@ -7,8 +7,8 @@ use crate::molecule::canon::canonical_smiles;
 use crate::molecule::formula::Formula;
 use crate::molecule::{Molecule, PerceivedMolecule};
 use crate::reactions::{
-    build_reaction, group_additivity_fallback, lookup_with_fallback, ReactionHeat,
-    ReferenceError, ReferenceTable, Rung, SourceTag,
+    build_reaction, group_additivity_fallback, lookup_with_fallback, ReactionHeat, ReferenceError,
+    ReferenceTable, Rung, SourceTag,
 };
 use crate::thermo::estimate::SetupError;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity, ThermoEstimate};
@@ -127,8 +127,8 @@ pub fn analyse_strain(
         .engine
         .estimate(&perceived, &EstimateOptions::default());
     let estimate_ok = estimate.as_ref().ok();
-    let target = resolve_target_hf(&key, user_hf_kj, &data.references, estimate_ok)
-        .ok_or_else(|| {
+    let target =
+        resolve_target_hf(&key, user_hf_kj, &data.references, estimate_ok).ok_or_else(|| {
             StrainError::NoTargetHf(match &estimate {
                 Err(e) => e.to_string(),
                 Ok(_) => "no finite Hf298".to_string(),
@@ -224,11 +224,16 @@ pub fn analyse_strain(
     });
     let (ring_systems, unassigned_kj, ga_hf) = match &estimate {
         Ok(e) => {
-            flags.extend(e.flags.iter().map(|f| format!("group additivity: {f}")));
+            // Entropy and heat-capacity remarks of the estimate do not bear on a strain energy.
+            flags.extend(
+                e.flags
+                    .iter()
+                    .filter(|f| !f.contains("S298 not estimated") && !f.contains("Cp(T) not"))
+                    .map(|f| format!("group additivity: {f}")),
+            );
             let systems = ring_system_strain(&perceived, &data.engine, e);
-            let residual = (!target.is_circular()).then(|| {
-                Quantity::new(t.value - e.hf298_kj.value, in_quadrature(t, e.hf298_kj))
-            });
+            let residual = (!target.is_circular())
+                .then(|| Quantity::new(t.value - e.hf298_kj.value, in_quadrature(t, e.hf298_kj)));
             (systems, residual, Some(e.hf298_kj))
         }
         Err(_) => (Vec::new(), None, None),
@@ -272,7 +277,10 @@ fn benson_scheme(
     };
     let free = e.strain_free_hf298_kj;
     if !free.value.is_finite() {
-        return unavailable(name, "the strain-free group sum is not available".to_string());
+        return unavailable(
+            name,
+            "the strain-free group sum is not available".to_string(),
+        );
     }
     let t = target.hf298_kj;
     let strain = if target.is_circular() {

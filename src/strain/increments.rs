@@ -24,8 +24,7 @@ use crate::thermo::Quantity;
 /// Path label of the bundled file (relative to the crate root).
 pub const BUNDLED_INCREMENTS_PATH: &str = "group-tables/reference/strain-free-increments.toml";
 
-const BUNDLED_TEXT: &str =
-    include_str!("../../group-tables/reference/strain-free-increments.toml");
+const BUNDLED_TEXT: &str = include_str!("../../group-tables/reference/strain-free-increments.toml");
 
 /// The four saturated carbon centres, by number of carbon neighbours (1 to 4).
 const CENTRES: [&str; 4] = ["C-(C)(H)3", "C-(C)2(H)2", "C-(C)3(H)", "C-(C)4"];
@@ -122,7 +121,10 @@ impl IncrementSet {
             let mut increments_kj = [Quantity::new(0.0, 0.0); 4];
             for (i, v) in values.iter().enumerate() {
                 increments_kj[i] = v.ok_or_else(|| {
-                    fail(format!("set \"{}\": no increment for {}", s.name, CENTRES[i]))
+                    fail(format!(
+                        "set \"{}\": no increment for {}",
+                        s.name, CENTRES[i]
+                    ))
                 })?;
             }
             sets.push(IncrementSet {

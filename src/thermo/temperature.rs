@@ -23,6 +23,14 @@ pub struct StateAt {
     pub s_j: f64,
     /// G(T) = H(T) - T S(T) on the formation-enthalpy scale, kJ/mol.
     pub g_kj: f64,
+    /// Uncertainty of `cp_j`, J/(mol K).
+    pub cp_unc_j: f64,
+    /// Uncertainty of `h_kj` (Hf298 and the Cp integral, taken as fully correlated), kJ/mol.
+    pub h_unc_kj: f64,
+    /// Uncertainty of `s_j` (S298 and the Cp/T integral, fully correlated), J/(mol K).
+    pub s_unc_j: f64,
+    /// Uncertainty of `g_kj` (H and T*S combined in quadrature), kJ/mol.
+    pub g_unc_kj: f64,
 }
 
 /// Knots of the piecewise-linear Cp: (T, Cp) from 298.15 K to the last table temperature.
@@ -71,13 +79,18 @@ pub fn integrate(knots: &[(f64, f64)], t_k: f64) -> Option<(f64, f64)> {
 impl ThermoEstimate {
     /// Cp, H, S, G at `t_k` (298.15..=1500 K), if Cp and S298 are estimated.
     pub fn state_at(&self, t_k: f64) -> Option<StateAt> {
-        let cp: [f64; 7] = self.cp_j?.map(|q| q.value);
-        let s298 = self.s298_j?.value;
-        let knots = cp_knots(&cp);
+        let cp_q = self.cp_j?;
+        let s298 = self.s298_j?;
+        let knots = cp_knots(&cp_q.map(|q| q.value));
+        let unc_knots = cp_knots(&cp_q.map(|q| q.uncertainty));
         let cp_t = cp_at(&knots, t_k)?;
         let (dh_j, ds) = integrate(&knots, t_k)?;
+        // Cp errors of one table entry move together at all temperatures: integrate them.
+        let (dh_unc_j, ds_unc) = integrate(&unc_knots, t_k)?;
         let h_kj = self.hf298_kj.value + dh_j / 1000.0;
-        let s_j = s298 + ds;
+        let s_j = s298.value + ds;
+        let h_unc_kj = self.hf298_kj.uncertainty + dh_unc_j.abs() / 1000.0;
+        let s_unc_j = s298.uncertainty + ds_unc.abs();
         Some(StateAt {
             t_k,
             cp_j: cp_t,
@@ -85,6 +98,10 @@ impl ThermoEstimate {
             h_kj,
             s_j,
             g_kj: h_kj - t_k * s_j / 1000.0,
+            cp_unc_j: cp_at(&unc_knots, t_k)?.abs(),
+            h_unc_kj,
+            s_unc_j,
+            g_unc_kj: h_unc_kj.hypot(t_k * s_unc_j / 1000.0),
         })
     }
 
