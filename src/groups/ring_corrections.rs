@@ -1,7 +1,7 @@
 //! Ring-correction lookup: matches each ring system's skeleton against the ring tables, with a
 //! flagged fallback (sum of the single rings, then the all-carbon ring of the same shape).
 
-use super::ring_match::{correction_skeletons, skeleton_of_rings, RingSkeleton};
+use super::ring_match::{correction_skeletons, skeleton_of_rings, RingSkeleton, SkeletonSignature};
 use super::table::{GroupTables, RingEntry};
 use crate::molecule::PerceivedMolecule;
 
@@ -20,7 +20,7 @@ pub struct RingPatternError {
 /// The ring entries with their skeletons, ready for matching.
 #[derive(Debug, Clone)]
 pub struct RingCorrectionIndex {
-    patterns: Vec<(usize, RingSkeleton)>,
+    patterns: Vec<(usize, RingSkeleton, SkeletonSignature)>,
 }
 
 /// How one ring system of a molecule got its correction.
@@ -64,17 +64,20 @@ impl RingCorrectionIndex {
                     skeletons.len()
                 )));
             }
-            patterns.push((i, skeletons.remove(0)));
+            let skeleton = skeletons.remove(0);
+            let signature = skeleton.signature();
+            patterns.push((i, skeleton, signature));
         }
         Ok(RingCorrectionIndex { patterns })
     }
 
     /// The table entry whose skeleton is `s`, if any.
     pub fn find(&self, s: &RingSkeleton) -> Option<usize> {
+        let signature = s.signature();
         self.patterns
             .iter()
-            .find(|(_, pattern)| pattern.same_as(s))
-            .map(|(i, _)| *i)
+            .find(|(_, pattern, sig)| *sig == signature && pattern.isomorphic_to(s))
+            .map(|(i, _, _)| *i)
     }
 
     /// The entry for one ring, trying the ring itself, then all-carbon, then saturated carbon.

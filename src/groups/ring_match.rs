@@ -31,6 +31,9 @@ pub enum SkeletonBond {
     Aromatic,
 }
 
+/// Atom count, bond count and sorted atom labels of a skeleton.
+pub type SkeletonSignature = (usize, usize, Vec<(u8, bool)>);
+
 /// The skeleton of one ring system of a molecule.
 #[derive(Debug, Clone)]
 pub struct RingSkeleton {
@@ -49,7 +52,7 @@ impl RingSkeleton {
     }
 
     /// A cheap invariant used to pre-filter candidates before the isomorphism test.
-    fn signature(&self) -> (usize, usize, Vec<(u8, bool)>) {
+    pub fn signature(&self) -> SkeletonSignature {
         let mut labels: Vec<(u8, bool)> = self
             .graph
             .node_weights()
@@ -61,13 +64,17 @@ impl RingSkeleton {
 
     /// Whether two skeletons are the same labelled graph.
     pub fn same_as(&self, other: &RingSkeleton) -> bool {
-        self.signature() == other.signature()
-            && petgraph::algo::is_isomorphic_matching(
-                &self.graph,
-                &other.graph,
-                |a, b| a == b,
-                |a, b| a == b,
-            )
+        self.signature() == other.signature() && self.isomorphic_to(other)
+    }
+
+    /// Whether two skeletons are the same labelled graph (no pre-filter).
+    pub fn isomorphic_to(&self, other: &RingSkeleton) -> bool {
+        petgraph::algo::is_isomorphic_matching(
+            &self.graph,
+            &other.graph,
+            |a, b| a == b,
+            |a, b| a == b,
+        )
     }
 
     /// The same skeleton with every atom carbon (the first fallback for an unlisted ring).
