@@ -8,7 +8,7 @@ use clap::Args;
 use super::inputs::InputArgs;
 use ringheat::groups::table::GroupTables;
 use ringheat::report::thermo::{estimate_rows, render_csv, render_explain, render_table};
-use ringheat::report::{OutputFormat, Row};
+use ringheat::report::{failed_count, OutputFormat};
 use ringheat::thermo::estimate::{EstimateOptions, GroupAdditivity};
 use ringheat::thermo::quantity::EnergyUnit;
 
@@ -69,16 +69,8 @@ pub fn run(args: EstimateArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
         (OutputFormat::Csv, _) => render_csv(&rows, unit),
     };
     print!("{text}");
-    // Bad records are rows of the output, not a failure of the run.
-    let failed = rows
-        .iter()
-        .filter(|r| matches!(r, Row::Failed { .. }))
-        .count();
-    if failed > 0 {
-        eprintln!(
-            "ringheat: {failed} of {} records gave an error (see their rows)",
-            rows.len()
-        );
-    }
-    Ok(ExitCode::SUCCESS)
+    Ok(super::inputs::report_failures(
+        failed_count(&rows),
+        rows.len(),
+    ))
 }

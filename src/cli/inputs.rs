@@ -44,3 +44,12 @@ impl InputArgs {
         Ok(records)
     }
 }
+
+/// Says on standard error how many records failed; bad records are rows of the output, not a
+/// failure of the run, so the exit code stays 0.
+pub fn report_failures(failed: usize, total: usize) -> std::process::ExitCode {
+    if failed > 0 {
+        eprintln!("ringheat: {failed} of {total} records gave an error (see their rows)");
+    }
+    std::process::ExitCode::SUCCESS
+}

@@ -6,7 +6,7 @@ use clap::Args;
 
 use super::inputs::InputArgs;
 use ringheat::report::strain::{render_csv, render_table, strain_rows};
-use ringheat::report::{OutputFormat, Row};
+use ringheat::report::{failed_count, OutputFormat};
 use ringheat::strain::StrainData;
 use ringheat::thermo::quantity::{EnergyUnit, JOULES_PER_CALORIE};
 use ringheat::thermo::Quantity;
@@ -64,15 +64,8 @@ pub fn run(args: StrainArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
         OutputFormat::Csv => render_csv(&rows, unit),
     };
     print!("{text}");
-    let failed = rows
-        .iter()
-        .filter(|r| matches!(r, Row::Failed { .. }))
-        .count();
-    if failed > 0 {
-        eprintln!(
-            "ringheat: {failed} of {} records gave an error (see their rows)",
-            rows.len()
-        );
-    }
-    Ok(ExitCode::SUCCESS)
+    Ok(super::inputs::report_failures(
+        failed_count(&rows),
+        rows.len(),
+    ))
 }

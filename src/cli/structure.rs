@@ -6,7 +6,7 @@ use clap::Args;
 
 use super::inputs::InputArgs;
 use ringheat::report::structure::{render_csv, render_table, structure_rows};
-use ringheat::report::{OutputFormat, Row};
+use ringheat::report::{failed_count, OutputFormat};
 
 /// Options of the structure command.
 #[derive(Debug, Args)]
@@ -25,16 +25,8 @@ pub fn run(args: StructureArgs) -> Result<ExitCode, Box<dyn std::error::Error>> 
         OutputFormat::Csv => render_csv(&rows),
     };
     print!("{text}");
-    // Bad records are rows of the output, not a failure of the run.
-    let failed = rows
-        .iter()
-        .filter(|r| matches!(r, Row::Failed { .. }))
-        .count();
-    if failed > 0 {
-        eprintln!(
-            "ringheat: {failed} of {} records gave an error (see their rows)",
-            rows.len()
-        );
-    }
-    Ok(ExitCode::SUCCESS)
+    Ok(super::inputs::report_failures(
+        failed_count(&rows),
+        rows.len(),
+    ))
 }

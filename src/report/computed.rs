@@ -3,7 +3,7 @@
 
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
 
-use super::strain::pm;
+use super::pm;
 use super::{cell, write_csv, SAFETY_NOTE};
 use crate::computed::ComputedCheck;
 use crate::reactions::SourceTag;

@@ -73,6 +73,34 @@ pub fn cell(value: Option<f64>, decimals: usize) -> String {
     }
 }
 
+/// `value ± uncertainty` scaled by `factor`, or `n/a`.
+pub fn pm(q: Option<crate::thermo::quantity::Quantity>, factor: f64, decimals: usize) -> String {
+    match q {
+        Some(q) if q.value.is_finite() => format!(
+            "{:.d$} ± {:.d$}",
+            q.value * factor,
+            q.uncertainty * factor,
+            d = decimals
+        ),
+        _ => "n/a".to_string(),
+    }
+}
+
+/// A record's title: its input, with its name in parentheses when it has one.
+pub fn record_title(input: &str, name: Option<&str>) -> String {
+    match name {
+        Some(n) => format!("{input} ({n})"),
+        None => input.to_string(),
+    }
+}
+
+/// Number of failed rows.
+pub fn failed_count<T>(rows: &[Row<T>]) -> usize {
+    rows.iter()
+        .filter(|r| matches!(r, Row::Failed { .. }))
+        .count()
+}
+
 /// The cautions printed with anything that may inform process-safety decisions.
 pub const SAFETY_NOTE: &str = "Screening estimates only (gas phase, group additivity; errors of \
 several kJ/mol are usual). Not a substitute for calorimetry or a qualified process-safety review; \

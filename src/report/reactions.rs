@@ -4,7 +4,7 @@
 
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
 
-use super::strain::pm;
+use super::pm;
 use super::{write_csv, Row, RowError};
 use crate::computed::energies::{template, InputUnit};
 use crate::input::InputRecord;

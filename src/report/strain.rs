@@ -3,7 +3,7 @@
 
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
 
-use super::{cell, write_csv, Row, RowError, SAFETY_NOTE};
+use super::{cell, pm, write_csv, Row, RowError, SAFETY_NOTE};
 use crate::input::InputRecord;
 use crate::molecule::parse_smiles;
 use crate::strain::{analyse_strain, StrainAnalysis, StrainData};
@@ -53,23 +53,8 @@ pub fn strain_rows(
         .collect()
 }
 
-pub(crate) fn pm(q: Option<Quantity>, factor: f64, decimals: usize) -> String {
-    match q {
-        Some(q) if q.value.is_finite() => format!(
-            "{:.d$} ± {:.d$}",
-            q.value * factor,
-            q.uncertainty * factor,
-            d = decimals
-        ),
-        _ => "n/a".to_string(),
-    }
-}
-
 fn title(r: &StrainRow) -> String {
-    match &r.name {
-        Some(n) => format!("{} ({n})", r.input),
-        None => r.input.clone(),
-    }
+    super::record_title(&r.input, r.name.as_deref())
 }
 
 /// The table view: a block per molecule, then the safety note.

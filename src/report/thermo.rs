@@ -3,7 +3,7 @@
 
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
 
-use super::{cell, write_csv, Row, RowError};
+use super::{cell, pm, write_csv, Row, RowError};
 use crate::input::InputRecord;
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::formula::Formula;
@@ -75,23 +75,8 @@ pub fn estimate_rows(
         .collect()
 }
 
-fn pm(q: Option<Quantity>, factor: f64, decimals: usize) -> String {
-    match q {
-        Some(q) if q.value.is_finite() => format!(
-            "{:.d$} ± {:.d$}",
-            q.value * factor,
-            q.uncertainty * factor,
-            d = decimals
-        ),
-        _ => "n/a".to_string(),
-    }
-}
-
 fn title(r: &EstimateRow) -> String {
-    match &r.name {
-        Some(n) => format!("{} ({n})", r.input),
-        None => r.input.clone(),
-    }
+    super::record_title(&r.input, r.name.as_deref())
 }
 
 /// The summary table: one line per molecule, then errors and flags underneath.
