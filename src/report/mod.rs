@@ -31,6 +31,21 @@ pub struct RowError {
     pub message: String,
 }
 
+impl RowError {
+    /// The CSV line of a failed record: its input, empty cells, and the error (on one line)
+    /// in the last of `width` columns.
+    pub fn csv_cells(&self, width: usize) -> Vec<String> {
+        let mut v = vec![self.input.clone()];
+        v.extend(std::iter::repeat_n(String::new(), width.saturating_sub(2)));
+        v.push(format!(
+            "{}: {}",
+            self.place,
+            self.message.replace('\n', " | ")
+        ));
+        v
+    }
+}
+
 /// The outcome for one input record.
 #[derive(Debug, Clone, serde::Serialize)]
 #[serde(untagged)]

@@ -240,14 +240,7 @@ pub fn render_csv(rows: &[Row<ReactionRow>], unit: EnergyUnit) -> String {
                 }
             }
             Row::Failed { error } => {
-                let mut v = vec![error.input.clone()];
-                v.extend(std::iter::repeat_n(String::new(), header.len() - 2));
-                v.push(format!(
-                    "{}: {}",
-                    error.place,
-                    error.message.replace('\n', " | ")
-                ));
-                lines.push(v);
+                lines.push(error.csv_cells(header.len()));
             }
         }
     }

@@ -267,16 +267,7 @@ pub fn render_csv(rows: &[Row<StrainRow>], unit: EnergyUnit) -> String {
                 v.push(String::new());
                 v
             }
-            Row::Failed { error } => {
-                let mut v = vec![error.input.clone()];
-                v.extend(std::iter::repeat_n(String::new(), width - 2));
-                v.push(format!(
-                    "{}: {}",
-                    error.place,
-                    error.message.replace('\n', " | ")
-                ));
-                v
-            }
+            Row::Failed { error } => error.csv_cells(width),
         })
         .collect();
     let refs: Vec<&str> = header.iter().map(String::as_str).collect();

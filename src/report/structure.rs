@@ -199,16 +199,7 @@ pub fn render_csv(rows: &[Row<StructureSummary>]) -> String {
                 systems_text(s),
                 String::new(),
             ],
-            Row::Failed { error } => {
-                let mut v = vec![error.input.clone()];
-                v.extend(std::iter::repeat_n(String::new(), 9));
-                v.push(format!(
-                    "{}: {}",
-                    error.place,
-                    error.message.replace('\n', " | ")
-                ));
-                v
-            }
+            Row::Failed { error } => error.csv_cells(header.len()),
         })
         .collect();
     write_csv(&header, &rows)

@@ -335,16 +335,7 @@ pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
                 v.push(String::new());
                 v
             }
-            Row::Failed { error } => {
-                let mut v = vec![error.input.clone()];
-                v.extend(std::iter::repeat_n(String::new(), width - 2));
-                v.push(format!(
-                    "{}: {}",
-                    error.place,
-                    error.message.replace('\n', " | ")
-                ));
-                v
-            }
+            Row::Failed { error } => error.csv_cells(width),
         })
         .collect();
     let header_refs: Vec<&str> = header.iter().map(|s| s.as_str()).collect();
