@@ -67,6 +67,9 @@ const TABLE: &[(&str, &str, u64)] = &[
     ("hydrogen", "[H][H]", 2),                                    // Dinfh: 2
     ("nitrogen", "N#N", 2),                                       // Dinfh: 2
     ("hydrogen cyanide", "C#N", 1),                               // Cinfv: 1
+    ("nitromethane", "C[N+](=O)[O-]", 6),                         // 3 x nitro 2 (resonance)
+    ("nitromethane, pentavalent", "CN(=O)=O", 6),                 // same molecule
+    ("nitrobenzene", "c1ccccc1[N+](=O)[O-]", 4),                  // C2v 2 x nitro 2
     ("p-xylene", "Cc1ccc(C)cc1", 36),                             // D2h 4 x 3^2
     ("mesitylene", "Cc1cc(C)cc(C)c1", 162),                       // D3h 6 x 3^3
     ("hexamethylbenzene", "Cc1c(C)c(C)c(C)c(C)c1C", 8748),        // D6h 12 x 3^6

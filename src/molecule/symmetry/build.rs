@@ -4,7 +4,9 @@
 //! shape it decides: pyramidal three-connected N, P, As, O+, S+ (so ammonia is C3v, not D3h),
 //! sulfoxide-type S and Se, and two-connected imine-type N and P (so that the lone pair takes
 //! a place in the cis/trans unit of `C=N`). Bond colours are the Kekulé order, or one shared
-//! colour for aromatic bonds (as written or as perceived), so benzene keeps its six-fold axis.
+//! colour for aromatic bonds (as written or as perceived), so benzene keeps its six-fold axis,
+//! and one colour for the bonds of resonance-equivalent terminal atoms (the two oxygens of a
+//! nitro group or a carboxylate), so nitromethane gets 6.
 
 use petgraph::graph::NodeIndex;
 use std::collections::HashMap;
@@ -32,6 +34,51 @@ pub(crate) struct Built {
     /// Unwritten tetrahedral or double-bond units whose references are all inequivalent in
     /// the stereo-free graph: places where the tool had to pick a configuration.
     pub open_stereocentres: usize,
+}
+
+/// Bond colour shared by the bonds of resonance-equivalent terminal atoms (nitro, carboxylate).
+const RESONANT: u8 = 6;
+
+/// Terminal atoms that resonance makes equivalent: on one centre, two or more degree-one atoms
+/// of one element, some double-bonded and neutral, some single-bonded with charge -1 (the two
+/// oxygens of `[N+](=O)[O-]` or `C(=O)[O-]`). Returns the flag per atom and per bond.
+fn resonant_terminals(mol: &Molecule) -> (Vec<bool>, Vec<bool>) {
+    let mut atoms = vec![false; mol.atom_count()];
+    let mut bonds = vec![false; mol.bond_count()];
+    for centre in mol.atoms() {
+        let mut by_element: HashMap<u8, Vec<(NodeIndex, petgraph::graph::EdgeIndex)>> =
+            HashMap::new();
+        for e in mol.graph.edges(centre) {
+            use petgraph::visit::EdgeRef;
+            let t = if e.source() == centre {
+                e.target()
+            } else {
+                e.source()
+            };
+            let a = mol.atom(t);
+            if mol.degree(t) == 1 && a.hydrogens == 0 && a.isotope.is_none() {
+                by_element
+                    .entry(a.element.atomic_number())
+                    .or_default()
+                    .push((t, e.id()));
+            }
+        }
+        for list in by_element.values() {
+            let double_neutral = list
+                .iter()
+                .any(|&(t, e)| mol.graph[e].order.valence() == 2 && mol.atom(t).charge == 0);
+            let single_anion = list
+                .iter()
+                .any(|&(t, e)| mol.graph[e].order.valence() == 1 && mol.atom(t).charge == -1);
+            if list.len() >= 2 && double_neutral && single_anion {
+                for &(t, e) in list {
+                    atoms[t.index()] = true;
+                    bonds[e.index()] = true;
+                }
+            }
+        }
+    }
+    (atoms, bonds)
 }
 
 /// Elements whose four-connected atoms are treated as tetrahedral (main-group B to Te).
@@ -65,6 +112,7 @@ pub(crate) fn build(mol: &Molecule) -> Built {
                 .any(|&a| mol.degree(a) + mol.atom(a).hydrogens as usize == 4)
     });
     let n0 = mol.atom_count();
+    let (resonant_atom, resonant_bond) = resonant_terminals(mol);
     let mut colours: HashMap<(u8, i8, u16, u8), u32> = HashMap::new();
     let mut colour_of = |key: (u8, i8, u16, u8)| {
         let next = colours.len() as u32;
@@ -73,9 +121,15 @@ pub(crate) fn build(mol: &Molecule) -> Built {
     let mut g = LabelledGraph::default();
     for v in mol.atoms() {
         let a = mol.atom(v);
+        // Resonance-equivalent terminals share one colour whatever their written charge.
+        let charge = if resonant_atom[v.index()] {
+            i8::MIN
+        } else {
+            a.charge
+        };
         let key = (
             a.element.atomic_number(),
-            a.charge,
+            charge,
             a.isotope.unwrap_or(0),
             a.radical_electrons,
         );
@@ -88,12 +142,14 @@ pub(crate) fn build(mol: &Molecule) -> Built {
         };
         let bond = &mol.graph[e];
         let aromatic = bond.aromatic || perceived.graph[e].aromatic;
-        let colour = if aromatic {
+        let colour = if resonant_bond[e.index()] {
+            RESONANT
+        } else if aromatic {
             AROMATIC
         } else {
             bond.order.valence()
         };
-        if colour == 2 {
+        if bond.order.valence() == 2 && !aromatic {
             doubles[a.index()] += 1;
             doubles[b.index()] += 1;
         }
