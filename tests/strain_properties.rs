@@ -17,7 +17,7 @@ use ringheat::thermo::{GroupAdditivity, Quantity};
 /// kJ per kcal (thermochemical calorie, exact by definition).
 const KJ_PER_KCAL: f64 = 4.184;
 /// CRC rows carry no uncertainty; the same assumption as group-tables/reference/ring-species.toml
-/// (2 kJ/mol, our choice, see tools/make_ring_species.py).
+/// (2 kJ/mol, our choice, see tools/make_measured_species.py).
 const CRC_ASSUMED_UNC_KJ: f64 = 2.0;
 
 /// Element counts and charge, products minus reactants, from the species' formulas.

@@ -1,12 +1,14 @@
 //! Reference species: measured gas-phase Hf298 of small molecules, keyed by canonical SMILES.
 //!
-//! The bundled table is three files of `group-tables/reference/` (a sub-directory, which the
+//! The bundled table is four files of `group-tables/reference/` (a sub-directory, which the
 //! group-table loader does not read), embedded at compile time:
 //! - `reference-species.toml`: small molecules, Active Thermochemical Tables 1.112 values carried
 //!   by the `chemicals` package (written by `tools/make_reference_species.py`);
 //! - `ring-species.toml`: ring compounds, ATcT where the package has them, else CRC Handbook
-//!   values with an assumed uncertainty (written by `tools/make_ring_species.py`); these give the
+//!   values with an assumed uncertainty (written by `tools/make_measured_species.py`); these give the
 //!   measured Hf298 of a strain target;
+//! - `acyclic-species.toml`: acyclic compounds from the same source and script, so that the
+//!   larger CBH fragments (neopentane, 2-methylbutane, ...) have measured values too;
 //! - `ring-species-recalled.toml`: a few strained ring compounds the package lacks (cubane, ...),
 //!   typed by hand from published measurements recalled from memory, each saying so.
 //!
@@ -37,7 +39,7 @@ use crate::molecule::PerceivedMolecule;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity};
 
 /// The bundled table files: (path relative to the crate root, contents).
-pub const BUNDLED_REFERENCE_FILES: [(&str, &str); 3] = [
+pub const BUNDLED_REFERENCE_FILES: [(&str, &str); 4] = [
     (
         "group-tables/reference/reference-species.toml",
         include_str!("../../group-tables/reference/reference-species.toml"),
@@ -45,6 +47,10 @@ pub const BUNDLED_REFERENCE_FILES: [(&str, &str); 3] = [
     (
         "group-tables/reference/ring-species.toml",
         include_str!("../../group-tables/reference/ring-species.toml"),
+    ),
+    (
+        "group-tables/reference/acyclic-species.toml",
+        include_str!("../../group-tables/reference/acyclic-species.toml"),
     ),
     (
         "group-tables/reference/ring-species-recalled.toml",
