@@ -3,7 +3,9 @@
 
 use super::ring_match::{correction_skeletons, skeleton_of_rings, RingSkeleton, SkeletonSignature};
 use super::table::{GroupTables, RingEntry};
+use crate::molecule::symmetry::symmetry_number;
 use crate::molecule::PerceivedMolecule;
+use crate::thermo::quantity::GAS_CONSTANT;
 
 /// A ring-table entry whose SMILES cannot serve as a ring-correction pattern.
 #[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
@@ -21,6 +23,9 @@ pub struct RingPatternError {
 #[derive(Debug, Clone)]
 pub struct RingCorrectionIndex {
     patterns: Vec<(usize, RingSkeleton, SkeletonSignature)>,
+    /// Per ring entry: R ln(sigma_flat / sigma_parent), J/(mol K), the shift that puts an
+    /// entropy given in the parent's real-symmetry convention onto the flat-graph convention.
+    entropy_shift_j: Vec<f64>,
 }
 
 /// How one ring system of a molecule got its correction.
@@ -47,6 +52,7 @@ impl RingCorrectionIndex {
     /// Builds skeletons for every ring entry of the tables.
     pub fn new(tables: &GroupTables) -> Result<RingCorrectionIndex, RingPatternError> {
         let mut patterns = Vec::new();
+        let mut entropy_shift_j = vec![0.0; tables.rings().len()];
         for (i, entry) in tables.rings().iter().enumerate() {
             let fail = |problem: String| RingPatternError {
                 file: entry.origin.file.display().to_string(),
@@ -64,11 +70,26 @@ impl RingCorrectionIndex {
                     skeletons.len()
                 )));
             }
+            if let Some(parent_sigma) = entry.parent_symmetry {
+                // Benson's ring entropies assume the parent's real symmetry number; ours
+                // subtract R ln(sigma of the flat graph), so the entry moves by the ratio.
+                let flat = symmetry_number(&p.mol).total.max(1) as f64;
+                entropy_shift_j[i] = GAS_CONSTANT * (flat / parent_sigma.max(1) as f64).ln();
+            }
             let skeleton = skeletons.remove(0);
             let signature = skeleton.signature();
             patterns.push((i, skeleton, signature));
         }
-        Ok(RingCorrectionIndex { patterns })
+        Ok(RingCorrectionIndex {
+            patterns,
+            entropy_shift_j,
+        })
+    }
+
+    /// The entropy shift (J/(mol K)) that converts ring entry `i` to the flat-graph symmetry
+    /// convention; zero for entries already in it.
+    pub fn entropy_shift_j(&self, i: usize) -> f64 {
+        self.entropy_shift_j.get(i).copied().unwrap_or(0.0)
     }
 
     /// The table entry whose skeleton is `s`, if any.

@@ -161,6 +161,10 @@ pub struct RingEntry {
     pub source: String,
     /// The measured compound the value was derived from, if any.
     pub derived_from: Option<String>,
+    /// The symmetry number of the parent molecule that the entropy value assumed (Benson's
+    /// tables use the real point group: cyclohexane chair 6). `None`: the value already follows
+    /// the tool's flat-graph convention. The estimate converts between the two.
+    pub parent_symmetry: Option<u64>,
     /// Where the entry was read.
     pub origin: EntryOrigin,
 }

@@ -373,9 +373,24 @@ impl GroupAdditivity {
             }
             for &i in &applied.entries {
                 let entry = &entries[i];
-                let values = match extra {
+                let mut values = match extra {
                     Some(x) => inflate(entry.values, x),
                     None => entry.values,
+                };
+                let shift = self.ring_index.entropy_shift_j(i);
+                values.s_j += shift;
+                let note = match (&note, shift.abs() > 1e-9, entry.parent_symmetry) {
+                    (n, true, Some(sigma)) => Some(
+                        n.iter()
+                            .cloned()
+                            .chain(std::iter::once(format!(
+                                "entropy moved by {shift:+.2} J/(mol K) from the parent's \
+                                 sigma {sigma} to the flat-graph convention"
+                            )))
+                            .collect::<Vec<_>>()
+                            .join("; "),
+                    ),
+                    (n, _, _) => n.clone(),
                 };
                 match terms
                     .iter_mut()

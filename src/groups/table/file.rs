@@ -58,6 +58,8 @@ struct RawEntry {
     source: Option<String>,
     same_as: Option<String>,
     derived_from: Option<String>,
+    /// Ring entries: the symmetry number of the parent that the entropy value assumed.
+    parent_symmetry: Option<u64>,
     /// Free text for the reader of the file; not used by the code.
     #[allow(dead_code)]
     note: Option<String>,
@@ -254,6 +256,7 @@ impl Ctx<'_> {
         self.forbid("name", entry.name.is_some())?;
         self.forbid("smiles", entry.smiles.is_some())?;
         self.forbid("counting", entry.counting.is_some())?;
+        self.forbid("parent_symmetry", entry.parent_symmetry.is_some())?;
         let source = self.source(&entry)?;
         let (values, same_as) = match &entry.same_as {
             Some(target) => {
@@ -293,6 +296,7 @@ impl Ctx<'_> {
         self.forbid("key", entry.key.is_some())?;
         self.forbid("smiles", entry.smiles.is_some())?;
         self.forbid("same_as", entry.same_as.is_some())?;
+        self.forbid("parent_symmetry", entry.parent_symmetry.is_some())?;
         let name = self.name(&entry)?;
         let source = self.source(&entry)?;
         let counting = match entry.counting.as_deref().map(str::trim) {
@@ -319,12 +323,16 @@ impl Ctx<'_> {
             Some(s) if !s.is_empty() => s.to_string(),
             _ => return Err(self.problem("no `smiles`")),
         };
+        if entry.parent_symmetry == Some(0) {
+            return Err(self.problem("`parent_symmetry` must be at least 1"));
+        }
         Ok(RingEntry {
             name,
             smiles,
             values: self.values(&entry)?,
             source,
             derived_from: entry.derived_from,
+            parent_symmetry: entry.parent_symmetry,
             origin: self.origin(),
         })
     }
