@@ -1,7 +1,7 @@
 //! Batch input: SMILES records from arguments, files or standard input, each with its place.
 //!
-//! A line holds a SMILES, then optionally white space and a free-text name. Blank lines and
-//! lines starting with `#` are skipped. Every other line becomes a record, so every such line
+//! A line holds a SMILES, then optionally white space and a free-text name (or a `#` comment).
+//! Blank lines and lines starting with `#` are skipped. Every other line becomes a record, so every such line
 //! yields one output row (a result or an error).
 
 use std::io::BufRead;
@@ -51,7 +51,9 @@ pub fn parse_line(line: &str) -> Option<(String, Option<String>)> {
     }
     match trimmed.split_once(char::is_whitespace) {
         Some((smiles, name)) => {
+            // A name that starts with `#` is a comment after the SMILES, not a name.
             let name = name.trim();
+            let name = if name.starts_with('#') { "" } else { name };
             Some((
                 smiles.to_string(),
                 (!name.is_empty()).then(|| name.to_string()),

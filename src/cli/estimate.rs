@@ -47,6 +47,12 @@ pub fn run(args: EstimateArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
         (None, Some(dir)) => GroupTables::bundled()?.with_extra_dir(dir)?,
         (None, None) => GroupTables::bundled()?,
     };
+    if tables.groups().next().is_none() {
+        return Err("the tables hold no groups: check the --tables directory".into());
+    }
+    if args.sigma == Some(0) || args.optical_isomers == Some(0) {
+        return Err("--sigma and --optical-isomers must be at least 1".into());
+    }
     let engine = GroupAdditivity::new(tables)?;
     if let Some(t) = args.at.iter().find(|t| !(298.15..=1500.0).contains(*t)) {
         return Err(format!("--at {t}: temperatures must lie in 298.15..1500 K").into());
@@ -66,7 +72,7 @@ pub fn run(args: EstimateArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
         (OutputFormat::Table, true) => render_explain(&rows, unit),
         (OutputFormat::Table, false) => render_table(&rows, unit),
         (OutputFormat::Json, _) => serde_json::to_string_pretty(&rows)? + "\n",
-        (OutputFormat::Csv, _) => render_csv(&rows, unit),
+        (OutputFormat::Csv, _) => render_csv(&rows, unit, &args.at),
     };
     print!("{text}");
     Ok(super::inputs::report_failures(

@@ -12,7 +12,8 @@
 //!   for a trisubstituted bond, two for a tetrasubstituted one, and for a 1,2-disubstituted bond
 //!   one if written Z, none if written E or unspecified (then flagged as assumed E).
 //!   A cis pair with one tert-butyl is `cis-tert-butyl`, with two `cis-di-tert-butyl` (each
-//!   falls back to `cis` when the tables lack it).
+//!   falls back to `cis` when the tables lack it). A pair that is not two carbons is
+//!   `cis-(X)(Y)` with no stand-in (Benson's `cis` is for alkyl pairs).
 //! - `ortho`: for every bond between two `Cb` atoms that both carry a non-hydrogen substituent;
 //!   two alkyl carbons give Benson's `ortho`, other pairs `ortho-(X)(Y)` with the substituent
 //!   types in the fixed ligand order (e.g. `ortho-(F)2`, `ortho-(C)(Cl)`), falling back to `ortho`.
@@ -138,7 +139,20 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
                         })
                         .map(|(n, _)| n)
                 };
+                // Substituents tied into one ring with the bond (indane, tetralin) are part of
+                // that ring's correction, not an ortho pair.
+                let same_ring = |sa: NodeIndex, sb: NodeIndex| {
+                    p.rings.rings.iter().any(|r| {
+                        r.atoms.contains(&a)
+                            && r.atoms.contains(&b)
+                            && r.atoms.contains(&sa)
+                            && r.atoms.contains(&sb)
+                    })
+                };
                 if let (Some(sa), Some(sb)) = (substituent(a, b), substituent(b, a)) {
+                    if same_ring(sa, sb) {
+                        continue;
+                    }
                     let name = ortho_name(types.ligand_name(sa), types.ligand_name(sb));
                     let fallback = (name != "ortho").then_some("ortho");
                     out.add(&name, fallback, 1);
@@ -239,9 +253,18 @@ fn count_cis(
         }
     };
     for &(x, y) in &arrangements[chosen] {
-        let name = cis_name(tb(x, a) + tb(y, b));
-        let fallback = (name != "cis").then_some("cis");
-        out.add(name, fallback, 1);
+        let carbon = |n: NodeIndex| mol.atom(n).element == Element::C;
+        if carbon(x) && carbon(y) {
+            let name = cis_name(tb(x, a) + tb(y, b));
+            let fallback = (name != "cis").then_some("cis");
+            out.add(name, fallback, 1);
+        } else {
+            // Benson's cis value is for alkyl pairs; a polar pair (cis-1,2-dichloroethene is
+            // the more stable isomer) gets a correction of its own or none.
+            let key =
+                super::key::GroupKey::new("cis", &[types.ligand_name(x), types.ligand_name(y)]);
+            out.add(&key.to_string(), None, 1);
+        }
     }
 }
 

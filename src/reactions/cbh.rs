@@ -18,6 +18,11 @@
 //! pieces around `a`. Coefficients are summed per canonical SMILES, so a species on both sides
 //! cancels; terminal atoms give `A(a) = B(e)` and drop out at CBH-2, as in the paper. A negative
 //! coefficient (an isolated atom at CBH-1, `deg = 0`) moves the species to the other side.
+//!
+//! "Atom" here means a super-atom: a functional unit such as a nitro or sulfonyl group counts as
+//! one atom at its centre and its bonds inside the unit are not CBH bonds (see
+//! [`super::fragment`]). Nitromethane thus has a single CBH bond, C-N, and its CBH-1 and higher
+//! reactions are empty, as those of ethane are.
 
 use std::collections::BTreeMap;
 use std::fmt;
@@ -26,6 +31,7 @@ use super::balance::check_conservation;
 use super::error::ReactionError;
 use super::fragment::{dihydrogen, Skeleton, Species};
 use super::reaction::Reaction;
+use super::validity::{abnormal_species, molecule_problem};
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::Molecule;
 
@@ -114,7 +120,8 @@ impl Tally {
 /// The target keeps its own molecule and key (stereo included); for cancelling against
 /// fragments, which carry no stereo, it is compared by its stereo-free key. Fails for molecules
 /// without heavy atoms, with several components or labelled hydrogen nodes, and (a builder
-/// defect, never expected) when a check fails.
+/// defect, never expected) when a check fails: conservation, or, for a target that is an
+/// ordinary neutral molecule, the [`validity`](super::validity) of every species.
 ///
 /// ```
 /// use ringheat::molecule::parse_smiles;
@@ -190,6 +197,15 @@ pub fn build_reaction(mol: &Molecule, rung: Rung) -> Result<Reaction, ReactionEr
         products,
     };
     check_conservation(&reaction)?;
+    if molecule_problem(&skeleton.mol).is_none() {
+        if let Some((species, problem)) = abnormal_species(&reaction).into_iter().next() {
+            return Err(ReactionError::AbnormalSpecies {
+                rung,
+                smiles: species.smiles.clone(),
+                problem,
+            });
+        }
+    }
     Ok(reaction)
 }
 

@@ -44,6 +44,17 @@ pub enum ReactionError {
         /// The first difference found.
         detail: String,
     },
+    /// A species of the reaction is not an ordinary neutral molecule although the target is
+    /// (see [`super::validity`]); a defect of the builder, reported rather than returned.
+    #[error("{rung} reaction holds {smiles}, which is not an ordinary molecule: {problem}")]
+    AbnormalSpecies {
+        /// The rung.
+        rung: Rung,
+        /// Canonical SMILES of the species.
+        smiles: String,
+        /// What is wrong with it.
+        problem: String,
+    },
     /// The target ended up with a coefficient other than 1 on the reactant side or 0 (cancelled).
     #[error("{rung} reaction gives the target a net coefficient of {coefficient}")]
     TargetCoefficient {

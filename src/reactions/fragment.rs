@@ -17,15 +17,29 @@
 //! 2-butene-type pieces), so a CBH-3 reaction of an aromatic molecule is one correct choice
 //! among several.
 //!
-//! Charges and valences are kept as written: a nitro group written `[N+](=O)[O-]` gives ionic
-//! pieces (`[OH-]`, `C[NH3+]`) at CBH-0 and CBH-1 and stays whole around N from CBH-2 on, and a
-//! hypervalent atom gives a hypervalent hydride (`[SH4]` from a sulfoxide at CBH-0). Such pieces
-//! have no reference values; pricing them needs a fallback or a higher rung.
+//! Functional units that cannot be cut into ordinary molecules (nitro, sulfonyl, sulfinyl,
+//! phosphoryl, isocyanide, N-oxide: a centre with its terminal charge-separated or multiply
+//! bonded O, S, Se or N, see the `units` module) are single super-atoms: every fragment that holds
+//! the centre holds the whole unit, hydrogen caps go on the centre's bonds to atoms outside the
+//! unit only, and the unit's terminal atoms are never a hydride, bond or atom fragment of their
+//! own. Nitromethane's CBH-0 pieces are methane and `O=[NH+][O-]` (not `[NH4+]` and `[OH-]`);
+//! sulfolane's sulfonyl unit gives `O=[SH2]=O` at CBH-0 and `CS(C)(=O)=O` at CBH-2 (not `[SH6]`).
+//! Atoms and bonds in the rung formulas of [`super::cbh`] are then super-atoms and the bonds
+//! between them. Other charged atoms (an ammonium ion) keep their charge in every piece, as the
+//! target is itself an ion.
+//!
+//! Double bonds keep their geometry where the parent fixes it (the `geometry` module): a double
+//! bond in a ring of 7 or fewer atoms whose fragment holds a ring neighbour on each end is
+//! written Z along the ring (cyclopentene's CBH-3 piece is `C/C=C\C`, cis-2-butene); other
+//! double bonds keep the parent's `/` `\` marks, if any. [`validity`](super::validity) checks
+//! that every species of a built reaction is an ordinary neutral molecule.
 
 use petgraph::graph::NodeIndex;
 use petgraph::visit::EdgeRef;
 
 use super::error::ReactionError;
+use super::geometry::{mark_for, relation, side_from_mark};
+use super::units::Units;
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::{Atom, Bond, BondOrder, Element, Molecule};
 
@@ -65,10 +79,11 @@ pub(crate) struct TreeAtom {
 }
 
 /// The target reduced to what fragmentation needs: heavy atoms only (hydrogens folded into
-/// counts), stereo marks dropped, one component.
+/// counts), chiral marks dropped (double-bond marks kept), one component, and its units.
 #[derive(Debug, Clone)]
 pub(crate) struct Skeleton {
     pub mol: Molecule,
+    units: Units,
 }
 
 impl Skeleton {
@@ -77,9 +92,6 @@ impl Skeleton {
     pub fn new(mol: &Molecule) -> Result<Skeleton, ReactionError> {
         let mut plain = mol.clone();
         plain.chiral_centres.clear();
-        for e in plain.graph.edge_weights_mut() {
-            e.direction = None;
-        }
         let folded = plain.with_hydrogens_folded();
         let is_hydrogen = |i: NodeIndex| folded.atom(i).element == Element::H;
         if folded.atoms().all(is_hydrogen) {
@@ -92,29 +104,41 @@ impl Skeleton {
         if components > 1 {
             return Err(ReactionError::Disconnected { components });
         }
-        Ok(Skeleton { mol: folded })
+        let units = Units::find(&folded);
+        Ok(Skeleton { mol: folded, units })
     }
 
-    /// Heavy atoms.
+    /// Super-atoms: heavy atoms that are not terminal members of a unit (a unit by its centre).
     pub fn atoms(&self) -> Vec<NodeIndex> {
-        self.mol.atoms().collect()
+        self.mol
+            .atoms()
+            .filter(|&a| !self.units.is_absorbed(a))
+            .collect()
     }
 
-    /// Heavy-atom bonds as (end, end, order).
+    /// Bonds between super-atoms as (end, end, order); bonds inside a unit are not listed.
     pub fn bonds(&self) -> Vec<(NodeIndex, NodeIndex, BondOrder)> {
         self.mol
             .graph
             .edge_references()
+            .filter(|e| !self.units.is_absorbed(e.source()) && !self.units.is_absorbed(e.target()))
             .map(|e| (e.source(), e.target(), e.weight().order))
             .collect()
     }
 
-    /// Number of heavy neighbours of `a`.
-    pub fn degree(&self, a: NodeIndex) -> usize {
-        self.mol.degree(a)
+    /// Super-atom neighbours of `a` with the bond to each.
+    fn neighbours(&self, a: NodeIndex) -> impl Iterator<Item = (NodeIndex, &Bond)> + '_ {
+        self.mol
+            .neighbours(a)
+            .filter(|(n, _)| !self.units.is_absorbed(*n))
     }
 
-    /// Sum of the heavy-atom bond orders (the H2 count of the CBH-0 reaction).
+    /// Number of super-atom neighbours of `a`.
+    pub fn degree(&self, a: NodeIndex) -> usize {
+        self.neighbours(a).count()
+    }
+
+    /// Sum of the orders of bonds between super-atoms (the H2 count of the CBH-0 reaction).
     pub fn bond_order_sum(&self) -> u32 {
         self.bonds().iter().map(|b| u32::from(b.2.valence())).sum()
     }
@@ -137,11 +161,7 @@ impl Skeleton {
     /// `a` with all its heavy neighbours (CBH-2 fragment).
     pub fn atom_centred(&self, a: NodeIndex) -> Result<Species, ReactionError> {
         let mut tree = vec![root(a)];
-        tree.extend(
-            self.mol
-                .neighbours(a)
-                .map(|(n, bond)| child(n, 0, bond.order)),
-        );
+        tree.extend(self.neighbours(a).map(|(n, bond)| child(n, 0, bond.order)));
         self.fragment(&tree)
     }
 
@@ -155,15 +175,22 @@ impl Skeleton {
         let mut tree = vec![root(a), child(b, 0, order)];
         for (centre, pos, other) in [(a, 0, b), (b, 1, a)] {
             // The central bond is already in the tree; a molecular graph has no parallel bonds.
-            for (n, bond) in self.mol.neighbours(centre).filter(|(n, _)| *n != other) {
+            for (n, bond) in self.neighbours(centre).filter(|(n, _)| *n != other) {
                 tree.push(child(n, pos, bond.order));
             }
         }
         self.fragment(&tree)
     }
 
-    /// Builds the capped molecule of a tree.
-    fn fragment(&self, tree: &[TreeAtom]) -> Result<Species, ReactionError> {
+    /// Builds the capped molecule of a tree of super-atoms: each unit centre brings its
+    /// terminal members, then open valences are capped and double-bond geometry is written.
+    fn fragment(&self, centres: &[TreeAtom]) -> Result<Species, ReactionError> {
+        let mut tree = centres.to_vec();
+        for (pos, t) in centres.iter().enumerate() {
+            for &(m, order) in self.units.members_of(t.original) {
+                tree.push(child(m, pos, order));
+            }
+        }
         let mut inside_valence = vec![0u32; tree.len()];
         for (pos, t) in tree.iter().enumerate() {
             if let Some((parent, order)) = t.parent {
@@ -194,7 +221,77 @@ impl Skeleton {
             }
             nodes.push(node);
         }
+        self.write_geometry(&tree, &nodes, &mut out);
         Ok(Species::new(out))
+    }
+
+    /// Writes `/` `\` marks on the fragment `out` (tree `tree`, nodes `nodes`) for every double
+    /// bond whose parent fixes the relation of a fragment substituent on each end.
+    fn write_geometry(&self, tree: &[TreeAtom], nodes: &[NodeIndex], out: &mut Molecule) {
+        // Tree neighbours of every position joined by a single bond.
+        let mut single: Vec<Vec<usize>> = vec![Vec::new(); tree.len()];
+        for (pos, t) in tree.iter().enumerate() {
+            if let Some((parent, BondOrder::Single)) = t.parent {
+                single[pos].push(parent);
+                single[parent].push(pos);
+            }
+        }
+        for (pb, t) in tree.iter().enumerate() {
+            let Some((pa, BondOrder::Double)) = t.parent else {
+                continue;
+            };
+            let (a, b) = (tree[pa].original, t.original);
+            let pair = single[pa].iter().find_map(|&u| {
+                single[pb].iter().find_map(|&v| {
+                    relation(&self.mol, a, b, tree[u].original, tree[v].original)
+                        .map(|cis| (u, v, cis))
+                })
+            });
+            if let Some((u, v, cis)) = pair {
+                mark_pair(out, nodes, (pa, &single[pa], u), (pb, &single[pb], v), cis);
+            }
+        }
+    }
+}
+
+/// Marks substituent `u` of end `pa` and `v` of end `pb` as cis or trans, reusing a mark that a
+/// substituent bond already carries (a conjugated chain) and leaving the bond unmarked when the
+/// marks already there contradict the wanted relation.
+fn mark_pair(
+    out: &mut Molecule,
+    nodes: &[NodeIndex],
+    (pa, subs_a, u): (usize, &[usize], usize),
+    (pb, subs_b, v): (usize, &[usize], usize),
+    cis: bool,
+) {
+    // Side of `want` at `end` from an existing mark on one of its substituent bonds.
+    let existing = |out: &Molecule, end: usize, subs: &[usize], want: usize| -> Option<i8> {
+        subs.iter().find_map(|&s| {
+            let edge = out.graph.find_edge(nodes[end], nodes[s])?;
+            let dir = out.graph[edge].direction?;
+            let side = side_from_mark(nodes[s], dir);
+            Some(if s == want { side } else { -side })
+        })
+    };
+    let set = |out: &mut Molecule, end: usize, s: usize, side: i8| {
+        if let Some(edge) = out.graph.find_edge(nodes[end], nodes[s]) {
+            out.graph[edge].direction = Some(mark_for(nodes[s], side));
+        }
+    };
+    let side_u = match existing(out, pa, subs_a, u) {
+        Some(side) => side,
+        None => {
+            set(out, pa, u, -1);
+            -1
+        }
+    };
+    let side_v = if cis { side_u } else { -side_u };
+    match existing(out, pb, subs_b, v) {
+        Some(side) if side != side_v => {
+            // Contradicting marks from a neighbouring double bond: leave this one unmarked.
+        }
+        Some(_) => {}
+        None => set(out, pb, v, side_v),
     }
 }
 

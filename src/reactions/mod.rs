@@ -2,7 +2,8 @@
 //! reference species with measured heats of formation, and reaction heats with uncertainties.
 //!
 //! [`build_reaction`] cuts a molecule into the rung's hydrogen-capped acyclic fragments and
-//! returns a balanced [`Reaction`] (checked before it is returned); [`strain_from_reaction`]
+//! returns a balanced [`Reaction`] (checked before it is returned: conservation per rung, and
+//! every species an ordinary neutral molecule, [`validity`]); [`strain_from_reaction`]
 //! prices it with the target's heat of formation and the [`ReferenceTable`] (or a fallback such
 //! as group additivity, flagged per species) and gives the strain energy `SE = -dH`.
 //!
@@ -21,9 +22,12 @@ mod balance;
 pub mod cbh;
 pub mod error;
 pub mod fragment;
+mod geometry;
 pub mod heat;
 pub mod reaction;
 pub mod reference;
+mod units;
+pub mod validity;
 
 pub use cbh::{build_hierarchy, build_reaction, Rung};
 pub use error::{ReactionError, ReferenceError};
@@ -33,3 +37,4 @@ pub use reaction::Reaction;
 pub use reference::{
     group_additivity_fallback, lookup_with_fallback, ReferenceSpecies, ReferenceTable,
 };
+pub use validity::{abnormal_species, molecule_problem};

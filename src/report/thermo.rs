@@ -1,7 +1,10 @@
 //! Thermochemistry report: Hf298, S298, Cp(T) per molecule, the explain view of every term with
 //! its source, and states at chosen temperatures.
 
-use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
+use comfy_table::{presets::UTF8_FULL_CONDENSED, ContentArrangement, Table};
+
+/// Width in characters of the explain table (sources wrap inside it).
+const EXPLAIN_WIDTH: u16 = 160;
 
 use super::{cell, pm, write_csv, Row, RowError};
 use crate::input::InputRecord;
@@ -199,6 +202,9 @@ pub fn render_explain(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
         ));
         let mut t = Table::new();
         t.load_preset(UTF8_FULL_CONDENSED);
+        // Long source texts wrap instead of stretching the table across the screen.
+        t.set_content_arrangement(ContentArrangement::Dynamic);
+        t.set_width(EXPLAIN_WIDTH);
         t.set_header(vec![
             "kind".to_string(),
             "term".to_string(),
@@ -276,7 +282,8 @@ pub fn render_explain(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
 }
 
 /// CSV: one line per record with Hf, S, Cp at every table temperature, sigma, flags, error.
-pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
+/// With `temperatures` (the `--at` list) it adds Cp, H-H298, S and G columns for each.
+pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit, temperatures: &[f64]) -> String {
     let f = unit.factor();
     let (eu, su) = (
         if unit == EnergyUnit::KiloJoule {
@@ -303,6 +310,14 @@ pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
         format!("cp298_{su}_per_mol_k"),
     ];
     header.extend(temps.iter().map(|t| format!("cp{t:.0}_{su}_per_mol_k")));
+    for t in temperatures {
+        header.extend([
+            format!("at{t}_cp_{su}_per_mol_k"),
+            format!("at{t}_h_minus_h298_{eu}_per_mol"),
+            format!("at{t}_s_{su}_per_mol_k"),
+            format!("at{t}_g_{eu}_per_mol"),
+        ]);
+    }
     header.extend([
         "sigma".into(),
         "optical_isomers".into(),
@@ -328,6 +343,13 @@ pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
                 ];
                 for k in 0..temps.len() {
                     v.push(cell(e.cp_j.map(|c| c[k].value * f), 3));
+                }
+                for t in temperatures {
+                    let at = r.states.iter().find(|s| (s.t_k - t).abs() < 1e-9);
+                    v.push(cell(at.map(|s| s.cp_j * f), 3));
+                    v.push(cell(at.map(|s| s.dh_kj * f), 4));
+                    v.push(cell(at.map(|s| s.s_j * f), 3));
+                    v.push(cell(at.map(|s| s.g_kj * f), 4));
                 }
                 v.push(e.symmetry.total.to_string());
                 v.push(e.symmetry.optical_isomers.to_string());

@@ -85,13 +85,13 @@ pub struct EstimateOptions {
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum EstimateError {
     /// An atom has no Benson type.
-    #[error("atom {atom} ({element}, column {column}): {reason}")]
+    #[error("atom {atom} ({element}, column {}): {reason}", .column + 1)]
     Untyped {
         /// 1-based atom number.
         atom: usize,
         /// Element symbol.
         element: String,
-        /// 0-based column in the input SMILES.
+        /// 0-based byte column in the input SMILES (printed 1-based).
         column: usize,
         /// Why.
         reason: String,
@@ -427,14 +427,17 @@ impl GroupAdditivity {
             }
         }
         let (symmetry, overridden) = match options.symmetry_override {
-            Some((sigma, n)) => {
-                let mut info = graph_symmetry(p);
-                info.total = sigma.max(1);
-                info.external = sigma.max(1);
-                info.internal = 1;
-                info.optical_isomers = n.max(1);
-                (info, true)
-            }
+            // The user's value replaces the graph's; the graph is not searched at all.
+            Some((sigma, n)) => (
+                SymmetryUsed {
+                    total: sigma.max(1),
+                    external: sigma.max(1),
+                    internal: 1,
+                    optical_isomers: n.max(1),
+                    notes: vec!["symmetry number and optical isomers given by the user".into()],
+                },
+                true,
+            ),
             None => (graph_symmetry(p), false),
         };
         let s298 = s.quantity().map(|q| {
@@ -442,11 +445,25 @@ impl GroupAdditivity {
                 + GAS_CONSTANT * (symmetry.optical_isomers.max(1) as f64).ln();
             Quantity::new(q.value + sym, q.uncertainty)
         });
+        let lacking = |has: fn(&ThermoIncrement) -> bool| -> String {
+            terms
+                .iter()
+                .filter(|t| !has(&t.per_unit))
+                .map(|t| t.label.clone())
+                .collect::<Vec<_>>()
+                .join(", ")
+        };
         if s298.is_none() {
-            flags.push("a term has no entropy in the tables: S298 not estimated".into());
+            flags.push(format!(
+                "no entropy in the tables for {}: S298 not estimated",
+                lacking(|v| v.known.s)
+            ));
         }
         let cp_j = if cp.iter().any(|c| c.missing) {
-            flags.push("a term has no heat capacity in the tables: Cp(T) not estimated".into());
+            flags.push(format!(
+                "no heat capacity in the tables for {}: Cp(T) not estimated",
+                lacking(|v| v.known.cp)
+            ));
             None
         } else {
             let mut out = [Quantity::new(0.0, 0.0); 7];

@@ -6,10 +6,11 @@ use crate::molecule::element::Element;
 
 /// A SMILES that could not be read, with the place where reading stopped.
 ///
-/// `Display` prints the problem, `at column N` (0-based byte column, the same number as
-/// [`SmilesError::column`]), then the input on the next line and a caret under the column.
+/// `Display` prints the problem, `at column N` (1-based, as editors count; the field
+/// [`SmilesError::column`] is the 0-based byte offset), then the input on the next line and a
+/// caret under the column.
 #[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
-#[error("{kind} at column {column}\n{}", caret_lines(.input, *.column))]
+#[error("{kind} at column {}\n{}", .column + 1, caret_lines(.input, *.column))]
 pub struct SmilesError {
     /// What went wrong.
     pub kind: SmilesErrorKind,
@@ -220,7 +221,7 @@ mod tests {
         let e = error(SmilesErrorKind::UnexpectedCharacter('x'), 3, "CCCxC");
         let text = e.to_string();
         let lines: Vec<&str> = text.lines().collect();
-        assert_eq!(lines[0], "unexpected character 'x' at column 3");
+        assert_eq!(lines[0], "unexpected character 'x' at column 4");
         assert_eq!(lines[1], "CCCxC");
         assert_eq!(lines[2], "   ^");
     }
@@ -240,7 +241,7 @@ mod tests {
     #[test]
     fn column_past_the_end_and_multibyte_input_do_not_panic() {
         let e = error(SmilesErrorKind::Empty, 10, "");
-        assert!(e.to_string().contains("at column 10"));
+        assert!(e.to_string().contains("at column 11"));
         let e = error(SmilesErrorKind::UnexpectedCharacter('é'), 2, "CCé");
         assert!(e.to_string().ends_with("  ^"));
         let long = format!("{}é{}", "C".repeat(100), "C".repeat(100));

@@ -351,7 +351,7 @@ fn error_display_names_the_place() {
     let e = parse_smiles("FC=F").err().map(|e| e.to_string());
     let text = e.unwrap_or_default();
     assert!(text.starts_with("atom F has valence 2"), "{text}");
-    assert!(text.contains("at column 3\nFC=F\n   ^"), "{text}");
+    assert!(text.contains("at column 4\nFC=F\n   ^"), "{text}");
 }
 
 #[test]
