@@ -186,3 +186,14 @@ fn entropy_term_sign() {
     // -R ln 12 = -20.66 J/(mol K) (R = 8.314462618, validation guide)
     assert!((methane.entropy_term_j_per_mol_k() + 20.66).abs() < 0.01);
 }
+
+/// Very large molecules skip the search (it grows steeply with size) and say so; the two end
+/// methyls of a long chain still count as rotors.
+#[test]
+fn very_large_molecules_get_a_flagged_lower_bound() {
+    let chain = "C".repeat(ringheat::molecule::symmetry::LARGEST_SEARCHED + 50);
+    let mol = ringheat::molecule::parse_smiles(&chain).expect("parses");
+    let info = ringheat::molecule::symmetry::symmetry_number(&mol.with_hydrogens_folded());
+    assert_eq!(info.total, 9);
+    assert!(info.notes.iter().any(|n| n.contains("search was skipped")));
+}

@@ -41,6 +41,12 @@ impl InputArgs {
             }
             None => {}
         }
+        if records.is_empty() {
+            return Err(
+                "no SMILES to read: give them as arguments, with --file, or on standard input"
+                    .into(),
+            );
+        }
         Ok(records)
     }
 }
