@@ -172,3 +172,14 @@ fn isomers_are_told_apart() {
         assert_ne!(key(a), key(b), "{a} vs {b}");
     }
 }
+
+/// The pentavalent and the charge-separated spellings of a nitro group are one molecule.
+#[test]
+fn nitro_spellings_share_a_key() {
+    let key = |s: &str| {
+        ringheat::molecule::canonical_smiles(&ringheat::molecule::parse_smiles(s).expect("parses"))
+    };
+    assert_eq!(key("CN(=O)=O"), key("C[N+](=O)[O-]"));
+    assert_eq!(key("O=N(=O)c1ccccc1"), key("[O-][N+](=O)c1ccccc1"));
+    assert_ne!(key("CN=O"), key("C[N+](=O)[O-]"));
+}

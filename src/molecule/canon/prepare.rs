@@ -56,6 +56,8 @@ impl Prepared {
                 direction: e.weight().direction.map(|(f, d)| (f.index(), d)),
             });
         }
+        let mut atoms = atoms;
+        separate_nitro_charges(&mut atoms, &adj, &mut bonds);
         let ring = ring_bonds(&adj, bonds.len());
         let mut ring_atom = vec![false; atoms.len()];
         for (bond, &r) in bonds.iter_mut().zip(&ring) {
@@ -247,4 +249,35 @@ fn ring_bonds(adj: &[Vec<(usize, usize)>], bond_count: usize) -> Vec<bool> {
         }
     }
     ring
+}
+
+/// Writes a pentavalent nitro group `N(=O)=O` in its charge-separated form `[N+](=O)[O-]`, so
+/// both spellings of one molecule get one key (the form RDKit and most tables use).
+fn separate_nitro_charges(
+    atoms: &mut [Atom],
+    adj: &[Vec<(usize, usize)>],
+    bonds: &mut [PreparedBond],
+) {
+    for n in 0..atoms.len() {
+        if atoms[n].element != Element::N || atoms[n].charge != 0 {
+            continue;
+        }
+        let terminal_oxo: Vec<(usize, usize)> = adj[n]
+            .iter()
+            .copied()
+            .filter(|&(o, b)| {
+                atoms[o].element == Element::O
+                    && atoms[o].charge == 0
+                    && adj[o].len() == 1
+                    && atoms[o].hydrogens == 0
+                    && bonds[b].order == BondOrder::Double
+            })
+            .collect();
+        if terminal_oxo.len() == 2 {
+            let (o, b) = terminal_oxo[1];
+            bonds[b].order = BondOrder::Single;
+            atoms[o].charge = -1;
+            atoms[n].charge = 1;
+        }
+    }
 }
