@@ -1,15 +1,13 @@
 //! `ringheat estimate`: group-additivity thermochemistry of each molecule.
 
-use std::path::PathBuf;
 use std::process::ExitCode;
 
 use clap::Args;
 
-use super::inputs::InputArgs;
-use ringheat::groups::table::GroupTables;
+use super::inputs::{InputArgs, TableArgs};
 use ringheat::report::thermo::{estimate_rows, render_csv, render_explain, render_table};
 use ringheat::report::{failed_count, OutputFormat};
-use ringheat::thermo::estimate::{EstimateOptions, GroupAdditivity};
+use ringheat::thermo::estimate::EstimateOptions;
 use ringheat::thermo::quantity::EnergyUnit;
 
 /// Options of the estimate command.
@@ -26,12 +24,8 @@ pub struct EstimateArgs {
     /// Also give Cp, H-H298, S and G at these temperatures in K (298.15 to 1500), comma-separated.
     #[arg(long, value_delimiter = ',')]
     pub at: Vec<f64>,
-    /// A directory of extra table files whose entries add to or replace the bundled ones.
-    #[arg(long)]
-    pub extra_tables: Option<PathBuf>,
-    /// Use only the table files of this directory instead of the bundled ones.
-    #[arg(long, conflicts_with = "extra_tables")]
-    pub tables: Option<PathBuf>,
+    #[command(flatten)]
+    pub tables: TableArgs,
     /// Symmetry number to use instead of the graph's (applies to every input molecule).
     #[arg(long)]
     pub sigma: Option<u64>,
@@ -42,18 +36,10 @@ pub struct EstimateArgs {
 
 /// Runs the command.
 pub fn run(args: EstimateArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
-    let tables = match (&args.tables, &args.extra_tables) {
-        (Some(dir), _) => GroupTables::load_dir(dir)?,
-        (None, Some(dir)) => GroupTables::bundled()?.with_extra_dir(dir)?,
-        (None, None) => GroupTables::bundled()?,
-    };
-    if tables.groups().next().is_none() {
-        return Err("the tables hold no groups: check the --tables directory".into());
-    }
     if args.sigma == Some(0) || args.optical_isomers == Some(0) {
         return Err("--sigma and --optical-isomers must be at least 1".into());
     }
-    let engine = GroupAdditivity::new(tables)?;
+    let engine = args.tables.engine()?;
     if let Some(t) = args.at.iter().find(|t| !(298.15..=1500.0).contains(*t)) {
         return Err(format!("--at {t}: temperatures must lie in 298.15..1500 K").into());
     }

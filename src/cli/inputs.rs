@@ -5,8 +5,10 @@ use std::path::PathBuf;
 
 use clap::Args;
 
+use ringheat::groups::table::GroupTables;
 use ringheat::input::{read_records, records_from_arguments, InputRecord};
 use ringheat::report::OutputFormat;
+use ringheat::thermo::GroupAdditivity;
 
 /// Input and output options shared by the commands.
 #[derive(Debug, Args)]
@@ -58,4 +60,30 @@ pub fn report_failures(failed: usize, total: usize) -> std::process::ExitCode {
         eprintln!("ringheat: {failed} of {total} records gave an error (see their rows)");
     }
     std::process::ExitCode::SUCCESS
+}
+
+/// Which group tables to use: the bundled ones, plus a user's directory, or only the user's.
+#[derive(Debug, Args)]
+pub struct TableArgs {
+    /// A directory of extra table files whose entries add to or replace the bundled ones.
+    #[arg(long)]
+    pub extra_tables: Option<PathBuf>,
+    /// Use only the table files of this directory instead of the bundled ones.
+    #[arg(long, conflicts_with = "extra_tables")]
+    pub tables: Option<PathBuf>,
+}
+
+impl TableArgs {
+    /// The estimator over the chosen tables; refuses tables without any group.
+    pub fn engine(&self) -> Result<GroupAdditivity, Box<dyn std::error::Error>> {
+        let tables = match (&self.tables, &self.extra_tables) {
+            (Some(dir), _) => GroupTables::load_dir(dir)?,
+            (None, Some(dir)) => GroupTables::bundled()?.with_extra_dir(dir)?,
+            (None, None) => GroupTables::bundled()?,
+        };
+        if tables.groups().next().is_none() {
+            return Err("the tables hold no groups: check the --tables directory".into());
+        }
+        Ok(GroupAdditivity::new(tables)?)
+    }
 }

@@ -4,7 +4,7 @@ use std::process::ExitCode;
 
 use clap::Args;
 
-use super::inputs::InputArgs;
+use super::inputs::{InputArgs, TableArgs};
 use ringheat::report::strain::{render_csv, render_table, strain_rows};
 use ringheat::report::{failed_count, OutputFormat};
 use ringheat::strain::StrainData;
@@ -26,11 +26,14 @@ pub struct StrainArgs {
     /// Print (and read --hf298 in) kcal/mol instead of kJ/mol.
     #[arg(long)]
     pub kcal: bool,
+    #[command(flatten)]
+    pub tables: TableArgs,
 }
 
 /// Runs the command.
 pub fn run(args: StrainArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
-    let data = StrainData::bundled()?;
+    let mut data = StrainData::bundled()?;
+    data.engine = args.tables.engine()?;
     let unit = if args.kcal {
         EnergyUnit::KiloCalorie
     } else {
