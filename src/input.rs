@@ -1,6 +1,8 @@
 //! Batch input: SMILES records from arguments, files or standard input, each with its place.
 //!
 //! A line holds a SMILES, then optionally white space and a free-text name (or a `#` comment).
+//! Words `sigma=N` and `optical=N` in the name give that molecule's symmetry number and number
+//! of optical isomers, in place of the ones computed from the graph.
 //! Blank lines and lines starting with `#` are skipped. Every other line becomes a record, so every such line
 //! yields one output row (a result or an error).
 
@@ -30,6 +32,41 @@ pub struct InputRecord {
     pub smiles: String,
     /// The free-text name after the SMILES, if any.
     pub name: Option<String>,
+    /// A symmetry number given on the line as `sigma=N`, with `optical=N` (default 1): it
+    /// replaces the one computed from the graph for this molecule only.
+    pub symmetry: Option<(u64, u8)>,
+    /// A problem with the line's `sigma=` / `optical=` words, reported as the record's error.
+    pub problem: Option<String>,
+}
+
+/// Takes `sigma=N` and `optical=N` words out of a name; returns the rest, the override and any
+/// problem with those words.
+fn take_symmetry(name: &str) -> (String, Option<(u64, u8)>, Option<String>) {
+    let mut rest = Vec::new();
+    let (mut sigma, mut optical, mut problem) = (None, None, None);
+    for word in name.split_whitespace() {
+        if let Some(v) = word.strip_prefix("sigma=") {
+            match v.parse::<u64>() {
+                Ok(n) if n >= 1 => sigma = Some(n),
+                _ => problem = Some(format!("`{word}`: sigma must be a whole number >= 1")),
+            }
+        } else if let Some(v) = word.strip_prefix("optical=") {
+            match v.parse::<u8>() {
+                Ok(n) if n >= 1 => optical = Some(n),
+                _ => problem = Some(format!("`{word}`: optical must be a whole number >= 1")),
+            }
+        } else {
+            rest.push(word);
+        }
+    }
+    if optical.is_some() && sigma.is_none() && problem.is_none() {
+        problem = Some("`optical=` needs `sigma=` on the same line".to_string());
+    }
+    (
+        rest.join(" "),
+        sigma.map(|s| (s, optical.unwrap_or(1))),
+        problem,
+    )
 }
 
 /// Reading the input failed (the file could not be read at all).
@@ -86,6 +123,13 @@ pub fn read_records<R: BufRead>(
         line_no += 1;
         let text = String::from_utf8_lossy(&buf);
         if let Some((smiles, name)) = parse_line(&text) {
+            let (name, symmetry, problem) = match name {
+                Some(n) => {
+                    let (rest, symmetry, problem) = take_symmetry(&n);
+                    ((!rest.is_empty()).then_some(rest), symmetry, problem)
+                }
+                None => (None, None, None),
+            };
             records.push(InputRecord {
                 place: Place {
                     source: source_name.to_string(),
@@ -93,6 +137,8 @@ pub fn read_records<R: BufRead>(
                 },
                 smiles,
                 name,
+                symmetry,
+                problem,
             });
         }
     }
@@ -110,6 +156,8 @@ pub fn records_from_arguments(args: &[String]) -> Vec<InputRecord> {
             },
             smiles: s.clone(),
             name: None,
+            symmetry: None,
+            problem: None,
         })
         .collect()
 }
@@ -127,5 +175,14 @@ mod tests {
         assert_eq!(recs[1].name.as_deref(), Some("ethanol, dry"));
         assert_eq!(recs[2].smiles, "C1CC");
         assert_eq!(recs[2].place.to_string(), "t.smi:5");
+    }
+
+    #[test]
+    fn symmetry_words_leave_the_name() {
+        let text = "C1CCCCC1 cyclohexane chair sigma=6\nCC x optical=2\nCC sigma=0\n";
+        let recs = read_records(text.as_bytes(), "t.smi").unwrap();
+        assert_eq!(recs[0].name.as_deref(), Some("cyclohexane chair"));
+        assert_eq!(recs[0].symmetry, Some((6, 1)));
+        assert!(recs[1].problem.is_some() && recs[2].problem.is_some());
     }
 }

@@ -51,12 +51,19 @@ pub fn estimate_rows(
                     message,
                 },
             };
+            if let Some(problem) = &r.problem {
+                return fail(problem.clone());
+            }
             let mol = match parse_smiles(&r.smiles) {
                 Ok(m) => m,
                 Err(e) => return fail(e.to_string()),
             };
             let perceived = PerceivedMolecule::new(&mol);
-            match engine.estimate(&perceived, options) {
+            let mut options = *options;
+            if r.symmetry.is_some() {
+                options.symmetry_override = r.symmetry;
+            }
+            match engine.estimate(&perceived, &options) {
                 Ok(estimate) => {
                     let states = temperatures
                         .iter()
