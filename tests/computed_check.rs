@@ -201,6 +201,7 @@ fn tolerance_flag() {
         build_reaction(&parse_smiles("C1CC1").expect("parses"), Rung::Cbh2).expect("builds");
     let energies = parse_energies(GOOD, "good").expect("reads");
     let lookup = |s: &ringheat::reactions::Species| table.lookup(s);
+    // A group-additivity value for the comparison (invented for this test).
     let ga = Some(Quantity::new(53.6, 2.8));
     let tight = CheckOptions {
         tolerance_kj: 1.0,

@@ -6,10 +6,9 @@
 mod common;
 
 use common::{catch, Table};
-use ringheat::molecule::formula::Formula;
-use ringheat::molecule::{parse_smiles, Element};
+use ringheat::molecule::parse_smiles;
 use ringheat::reactions::{
-    build_hierarchy, build_reaction, group_additivity_fallback, lookup_with_fallback, Reaction,
+    build_hierarchy, build_reaction, group_additivity_fallback, lookup_with_fallback,
     ReactionError, ReactionHeat, ReferenceTable, Rung, SourceTag,
 };
 use ringheat::thermo::{GroupAdditivity, Quantity};
@@ -19,35 +18,6 @@ const KJ_PER_KCAL: f64 = 4.184;
 /// CRC rows carry no uncertainty; the same assumption as group-tables/reference/ring-species.toml
 /// (2 kJ/mol, our choice, see tools/make_measured_species.py).
 const CRC_ASSUMED_UNC_KJ: f64 = 2.0;
-
-/// Element counts and charge, products minus reactants, from the species' formulas.
-fn imbalance(r: &Reaction) -> Option<String> {
-    let elements = [
-        Element::H,
-        Element::C,
-        Element::N,
-        Element::O,
-        Element::S,
-        Element::F,
-        Element::CL,
-        Element::BR,
-        Element::I,
-    ];
-    for e in elements {
-        let net: i64 = r
-            .signed_terms()
-            .map(|(s, c)| c * i64::from(Formula::of(&s.molecule).count(e)))
-            .sum();
-        if net != 0 {
-            return Some(format!("{e} off by {net}"));
-        }
-    }
-    let charge: i64 = r
-        .signed_terms()
-        .map(|(s, c)| c * i64::from(Formula::of(&s.molecule).charge()))
-        .sum();
-    (charge != 0).then(|| format!("charge off by {charge}"))
-}
 
 #[test]
 fn every_reaction_of_the_reference_set_balances() {
@@ -68,7 +38,7 @@ fn every_reaction_of_the_reference_set_balances() {
         };
         for result in results {
             match result {
-                Ok(r) => match imbalance(&r) {
+                Ok(r) => match common::reaction_imbalance(&r) {
                     None => built += 1,
                     Some(e) => defects.push(format!("line {}: {smiles}: {e}: {r}", row.line)),
                 },

@@ -16,11 +16,12 @@ Standard library only; run from the repository root:
     python3 tools/make_measured_species.py
 """
 
-import csv
 import re
 import sys
 from datetime import date
 from pathlib import Path
+
+from make_reference_species import package_version, read_tsv, toml_string
 
 ROOT = Path(__file__).resolve().parent.parent
 SOURCE = ROOT / "tests" / "reference" / "thermo_reference.tsv"
@@ -37,18 +38,6 @@ TARGETS = {
 CRC_ASSUMED_UNC_KJ = 2.0
 
 
-def toml_string(text):
-    return '"' + text.replace("\\", "\\\\").replace('"', '\\"') + '"'
-
-
-def read_tsv(path):
-    with path.open(encoding="utf-8") as handle:
-        lines = list(handle)
-    header = [line for line in lines if line.startswith("#")]
-    body = [line for line in lines if not line.startswith("#")]
-    return header, list(csv.DictReader(body, delimiter="\t"))
-
-
 def main():
     for kind, (target, classes) in TARGETS.items():
         write_species(kind, target, classes)
@@ -58,12 +47,7 @@ def write_species(kind, target, classes):
     header, rows = read_tsv(SOURCE)
     _, small = read_tsv(ATCT_SMALL)
     small_cas = {row["cas"] for row in small}
-    version = "unknown"
-    for line in header:
-        found = re.search(r"chemicals (\d+(?:\.\d+)*)", line)
-        if found:
-            version = found.group(1)
-            break
+    version = package_version(header)
     kept = []
     skipped = 0
     for row in rows:

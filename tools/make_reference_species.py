@@ -23,23 +23,33 @@ NOBLE = {"He", "Ne", "Ar", "Kr", "Xe", "Rn"}
 
 
 def toml_string(text):
+    """A TOML basic string holding `text`."""
     return '"' + text.replace("\\", "\\\\").replace('"', '\\"') + '"'
 
 
-def main():
-    header = []
-    rows = []
-    with SOURCE.open(encoding="utf-8") as handle:
-        lines = [line for line in handle]
+def read_tsv(path):
+    """The `#` header lines and the rows (dicts) of a reference TSV file."""
+    with path.open(encoding="utf-8") as handle:
+        lines = list(handle)
     header = [line for line in lines if line.startswith("#")]
     body = [line for line in lines if not line.startswith("#")]
-    version = "unknown"
+    return header, list(csv.DictReader(body, delimiter="\t"))
+
+
+def package_version(header):
+    """The chemicals package version named in a reference file's header."""
     for line in header:
         found = re.search(r"chemicals (\d+(?:\.\d+)*)", line)
         if found:
-            version = found.group(1)
-            break
-    for row in csv.DictReader(body, delimiter="\t"):
+            return found.group(1)
+    return "unknown"
+
+
+def main():
+    rows = []
+    header, table = read_tsv(SOURCE)
+    version = package_version(header)
+    for row in table:
         elements = set(re.findall(r"[A-Z][a-z]?", row["formula"]))
         if elements & NOBLE:
             continue

@@ -121,3 +121,26 @@ pub fn catch<T>(f: impl FnOnce() -> T) -> Result<T, String> {
 pub fn one_line(text: &str) -> String {
     text.replace(['\n', '\t'], " ")
 }
+
+/// Element counts (all elements) and charge, reactants minus products, computed from the
+/// species' formulas independently of the reaction builder; `None` when the reaction balances.
+pub fn reaction_imbalance(r: &ringheat::reactions::Reaction) -> Option<String> {
+    use ringheat::molecule::formula::Formula;
+    use ringheat::molecule::Element;
+    let mut net = [0i64; 119];
+    let mut charge = 0i64;
+    for (species, coefficient) in r.signed_terms() {
+        let formula = Formula::of(&species.molecule);
+        for (z, slot) in net.iter_mut().enumerate().skip(1) {
+            if let Some(e) = Element::from_atomic_number(z as u8) {
+                *slot += coefficient * i64::from(formula.count(e));
+            }
+        }
+        charge += coefficient * i64::from(formula.charge());
+    }
+    if let Some(z) = (1..net.len()).find(|&z| net[z] != 0) {
+        let symbol = Element::from_atomic_number(z as u8).map_or("?", |e| e.symbol());
+        return Some(format!("{symbol} off by {}", net[z]));
+    }
+    (charge != 0).then(|| format!("charge off by {charge}"))
+}

@@ -278,28 +278,36 @@ mod tests {
         assert!(check(6, &edges).is_ok());
     }
 
-    #[test]
-    fn augmenting_through_blossoms_on_random_graphs() {
-        // Compare with brute force on small graphs drawn by a fixed linear congruential
-        // sequence (common practice for reproducible test inputs).
-        let mut seed: u64 = 12345;
+    /// `count` small random graphs (2 to 12 vertices) drawn by a fixed linear congruential
+    /// sequence (common practice for reproducible test inputs).
+    fn random_graphs(mut seed: u64, count: usize) -> Vec<(usize, Vec<(usize, usize)>)> {
         let mut next = || {
             seed = seed
                 .wrapping_mul(6364136223846793005)
                 .wrapping_add(1442695040888963407);
             (seed >> 33) as usize
         };
-        for _ in 0..3000 {
-            let n = 2 + next() % 11;
-            let density = 2 + next() % 4;
-            let mut edges = Vec::new();
-            for a in 0..n {
-                for b in a + 1..n {
-                    if next() % density == 0 {
-                        edges.push((a, b));
+        (0..count)
+            .map(|_| {
+                let n = 2 + next() % 11;
+                let density = 2 + next() % 4;
+                let mut edges = Vec::new();
+                for a in 0..n {
+                    for b in a + 1..n {
+                        if next() % density == 0 {
+                            edges.push((a, b));
+                        }
                     }
                 }
-            }
+                (n, edges)
+            })
+            .collect()
+    }
+
+    #[test]
+    fn augmenting_through_blossoms_on_random_graphs() {
+        // Compare with brute force on small random graphs.
+        for (n, edges) in random_graphs(12345, 3000) {
             let found = check(n, &edges).is_ok();
             assert_eq!(found, brute_force_perfect(n, &edges), "{n} {edges:?}");
         }
@@ -308,24 +316,7 @@ mod tests {
     #[test]
     fn blossom_search_alone_finds_maximum_matchings() {
         // Edmonds' search from an empty matching (no greedy start), against brute force.
-        let mut seed: u64 = 987654321;
-        let mut next = || {
-            seed = seed
-                .wrapping_mul(6364136223846793005)
-                .wrapping_add(1442695040888963407);
-            (seed >> 33) as usize
-        };
-        for _ in 0..3000 {
-            let n = 2 + next() % 11;
-            let density = 2 + next() % 4;
-            let mut edges = Vec::new();
-            for a in 0..n {
-                for b in a + 1..n {
-                    if next() % density == 0 {
-                        edges.push((a, b));
-                    }
-                }
-            }
+        for (n, edges) in random_graphs(987654321, 3000) {
             let adj = Adjacency::new(n, &edges);
             let mut mate = vec![NONE; n];
             let mut search = Blossoms::new(&adj, &mut mate);
