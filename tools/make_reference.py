@@ -638,28 +638,38 @@ def heat_capacity_cross_check(cas, cp_crc):
     return bad
 
 
-# A CRC-only heat of formation is cross-checked against the NIST WebBook column the package also
-# carries. WebBook is never used as a value (it has wrong matches, see validation.md); where the
-# two disagree by more than this, nobody here can tell which is right, so the species is dropped.
-# Our choice: about 2 kcal/mol, beyond the scatter of sound measurements.
-MAX_CRC_WEBBOOK_DISAGREEMENT_KJ = 8.0
+# A CRC-only heat of formation is cross-checked against the two other gas-phase heat-of-formation
+# columns the package carries for it: the NIST WebBook column and the Yaws compilation. Neither is
+# used as a value (WebBook has wrong matches, see validation.md; Yaws carries some estimates). A
+# CRC value is kept when no check column has the species, or when at least one of them agrees
+# with it within this tolerance; when every available check disagrees nobody here can tell which
+# is right, so the species is dropped. Our choice: about 2 kcal/mol, beyond the scatter of sound
+# measurements.
+MAX_CRC_CHECK_DISAGREEMENT_KJ = 8.0
+HF_CHECK_COLUMNS = ("WEBBOOK", "YAWS")
 
 
-def webbook_hf(cas):
-    """The WebBook gas Hf298 (kJ/mol) the chemicals package carries for `cas`, if any."""
+def check_hfs(cas):
+    """The gas Hf298 values (kJ/mol) of the check columns the package carries for `cas`."""
     import chemicals.reaction as reaction
 
+    out = {}
     try:
-        if "WEBBOOK" not in reaction.Hfg_methods(cas):
-            return None
-        return reaction.Hfg(cas, method="WEBBOOK") / 1000.0
+        methods = reaction.Hfg_methods(cas)
     except Exception:
-        return None
+        return out
+    for m in HF_CHECK_COLUMNS:
+        if m in methods:
+            try:
+                out[m] = reaction.Hfg(cas, method=m) / 1000.0
+            except Exception:
+                pass
+    return out
 
 
 def make_thermo():
     from chemicals.heat_capacity import CRC_standard_data as crc
-    s_dropped, cp_dropped, webbook_dropped = [], [], []
+    s_dropped, cp_dropped, check_dropped = [], [], []
 
     _, atct_kept, _ = read_atct()
     atct = {k["cas"]: k for k in atct_kept}
@@ -697,9 +707,11 @@ def make_thermo():
                 unverified.append((cas, name, smiles))
                 continue
             hf, unc, src = crc_hf, None, "CRC"
-            wb = webbook_hf(cas)
-            if wb is not None and abs(wb - crc_hf) > MAX_CRC_WEBBOOK_DISAGREEMENT_KJ:
-                webbook_dropped.append((cas, name, crc_hf, wb))
+            checks = check_hfs(cas)
+            if checks and all(
+                abs(v - crc_hf) > MAX_CRC_CHECK_DISAGREEMENT_KJ for v in checks.values()
+            ):
+                check_dropped.append((cas, name, crc_hf, checks))
                 continue
         else:
             continue
@@ -758,7 +770,7 @@ def make_thermo():
         "#   (file 'Heat Capacity/CRC Standard Thermodynamic Properties of Chemical Substances.tsv',",
         f"#   columns Hfg J/mol, S0g J/(mol K), Cpg J/(mol K)) and '{ATCT_TABLE}' (Hfg, uncertainty);",
         "#   SMILES from chemicals.identifiers.search_chemical(CAS).smiles. API TDB and TRC",
-        "#   values are not used, and WEBBOOK only as a cross-check (see validation.md).",
+        "#   values are not used, and WEBBOOK and YAWS only as cross-checks (see validation.md).",
         *versions_header(),
         "# selection: every CAS with a CRC Hfg or an ATcT 1.112 gas entry (ATcT rows only when the",
         "#   looked-up SMILES matches the ATcT formula); one component, net charge 0, no radical",
@@ -768,9 +780,15 @@ def make_thermo():
         f"#   Species where CRC and ATcT differ by more than {MAX_SOURCE_DISAGREEMENT_KJ} kJ/mol are",
         f"#   dropped ({len(disagree)}):",
         *[f"#     {c} {n}: ATcT {a:.2f}, CRC {b:.2f} kJ/mol" for c, n, a, b in disagree],
-        f"#   CRC-only rows where the package's WebBook column differs from CRC by more than",
-        f"#   {MAX_CRC_WEBBOOK_DISAGREEMENT_KJ} kJ/mol (WebBook is used only as this check), dropped ({len(webbook_dropped)}):",
-        *[f"#     {c} {n}: CRC {a:.2f}, WebBook {b:.2f} kJ/mol" for c, n, a, b in webbook_dropped],
+        "#   CRC-only rows where every check column the package has for the species (WEBBOOK,",
+        f"#   YAWS; used only as checks) differs from CRC by more than {MAX_CRC_CHECK_DISAGREEMENT_KJ} kJ/mol,",
+        f"#   dropped ({len(check_dropped)}):",
+        *[
+            f"#     {c} {n}: CRC {a:.2f}; "
+            + ", ".join(f"{m} {v:.2f}" for m, v in sorted(b.items()))
+            + " kJ/mol"
+            for c, n, a, b in check_dropped
+        ],
         "#   CRC-only rows whose CRC name is not among the identifier table's names for the CAS",
         f"#   number (structure unverified), dropped ({len(unverified)}):",
         *[f"#     {c} {n}: looked-up SMILES {sm}" for c, n, sm in unverified],
