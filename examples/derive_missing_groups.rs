@@ -5,7 +5,12 @@
 //! Rule (fixed in advance, independent of how well anything fits): a compound of
 //! tests/reference/thermo_reference.tsv qualifies when, with every other table entry present, it
 //! lacks exactly one group, or else exactly one kind of correction (e.g. `ortho-(F)2`), or else
-//! exactly one ring system. For each missing entry the
+//! exactly one ring system. When no compound qualifies any more, a compound also qualifies for
+//! its one missing ring system when every group it lacks sits on an atom of that ring system
+//! (thiophene: `S-(Cd)2` occurs only in the ring); the ring correction is then derived with the
+//! lacking groups' generic stand-ins in place, as the estimator uses them, and says so; those
+//! groups are not derived afterwards (the ring value holds their stand-ins). For each
+//! missing entry the
 //! compound with the fewest heavy atoms is used (ties: ATcT before CRC, then CAS number). The
 //! value is (measured - sum of the other terms) / occurrences. Rounds repeat until nothing new
 //! can be derived. The compounds used are named in `derived_from`, and the validation test leaves
@@ -17,6 +22,7 @@ use std::collections::{BTreeMap, HashSet};
 use std::fmt::Write as _;
 use std::path::{Path, PathBuf};
 
+use ringheat::groups::assign::assign_groups;
 use ringheat::groups::ring_match::correction_skeletons;
 use ringheat::groups::table::GroupTables;
 use ringheat::molecule::formula::Formula;
@@ -93,6 +99,35 @@ fn priority(r: &Reference) -> Priority {
     )
 }
 
+/// Whether the compound lacks exactly one ring system and, besides it, only groups whose atoms all
+/// lie in that ring system, with a generic stand-in for each.
+fn lacks_only_ring_groups(
+    engine: &GroupAdditivity,
+    p: &PerceivedMolecule,
+    missing: &[ringheat::thermo::estimate::MissingGroup],
+) -> bool {
+    let skeletons = correction_skeletons(p);
+    let [skeleton] = skeletons.as_slice() else {
+        return false;
+    };
+    let Ok(assignment) = assign_groups(p) else {
+        return false;
+    };
+    let on_ring = assignment
+        .groups
+        .iter()
+        .filter(|g| missing.iter().any(|m| m.key == g.key))
+        .all(|g| skeleton.atoms.contains(&g.atom));
+    let Ok(est) = engine.estimate(p, &EstimateOptions::default()) else {
+        return false;
+    };
+    let ring_fallback = est.terms.iter().any(|t| {
+        t.kind == ringheat::thermo::estimate::TermKind::Ring
+            && t.note.as_deref().is_some_and(|n| n.starts_with("fallback"))
+    });
+    on_ring && ring_fallback
+}
+
 fn toml_string(s: &str) -> String {
     format!("\"{}\"", s.replace('\\', "\\\\").replace('"', "\\\""))
 }
@@ -136,12 +171,20 @@ fn main() {
         strict: true,
         ..EstimateOptions::default()
     };
-    for round in 1..=8 {
+    let lenient = EstimateOptions::default();
+    // Groups whose generic stand-ins a joint ring derivation absorbed: never derived afterwards,
+    // or the ring value would count them twice.
+    let mut absorbed: HashSet<String> = HashSet::new();
+    // Set after a round that derived nothing: the next round tries the joint ring derivations.
+    let mut stalled = false;
+    for round in 1..=12 {
         let engine = GroupAdditivity::new(GroupTables::load_dir(&work).expect("tables load"))
             .expect("ring patterns");
         // Missing key -> (priority, reference index, occurrences).
         let mut group_candidates: BTreeMap<String, (Priority, usize, u32)> = BTreeMap::new();
         let mut ring_candidates: Vec<(Priority, usize)> = Vec::new();
+        // Compounds lacking one ring system and only groups on its atoms (see the doc comment).
+        let mut joint_candidates: Vec<(Priority, usize)> = Vec::new();
         let mut correction_candidates: BTreeMap<String, (Priority, usize, u32)> = BTreeMap::new();
         for (i, r) in refs.iter().enumerate() {
             if used.contains(&r.cas) {
@@ -151,7 +194,14 @@ fn main() {
                 continue;
             };
             match engine.estimate(&p, &strict) {
-                Err(EstimateError::MissingGroups(m)) if m.len() == 1 => {
+                Err(EstimateError::MissingGroups(m))
+                    if stalled && lacks_only_ring_groups(&engine, &p, &m) =>
+                {
+                    joint_candidates.push((priority(r), i));
+                }
+                Err(EstimateError::MissingGroups(m))
+                    if m.len() == 1 && !absorbed.contains(&m[0].key.to_string()) =>
+                {
                     let key = m[0].key.to_string();
                     let cand = (priority(r), i, m[0].count);
                     let better = group_candidates.get(&key).is_none_or(|c| cand.0 < c.0);
@@ -173,6 +223,15 @@ fn main() {
                 }
                 _ => {}
             }
+        }
+        // Joint candidates only once nothing else can be derived, so that the stand-ins they
+        // absorb are final; that round derives nothing else.
+        let mut joint: HashSet<usize> = HashSet::new();
+        if stalled {
+            joint = joint_candidates.iter().map(|c| c.1).collect();
+            ring_candidates = joint_candidates;
+            group_candidates.clear();
+            correction_candidates.clear();
         }
         // One ring candidate per distinct skeleton.
         ring_candidates.sort();
@@ -223,12 +282,41 @@ fn main() {
         let mut derived_rings = String::new();
         let mut derived_corrections = String::new();
         let mut count = 0;
-        let emit = |out: &mut String, head: &str, r: &Reference, n: u32| -> bool {
+        let emit = |out: &mut String,
+                    head: &str,
+                    r: &Reference,
+                    n: u32,
+                    stand_ins: bool,
+                    conformational: bool|
+         -> bool {
             let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
                 return false;
             };
-            let Ok(est) = probe.estimate(&p, &strict) else {
-                return false;
+            let options = if stand_ins { &lenient } else { &strict };
+            let est = match probe.estimate(&p, options) {
+                Ok(est) => est,
+                Err(e) => {
+                    println!("  {} ({}) not derivable: {e}", r.name, r.cas);
+                    return false;
+                }
+            };
+            let with = if stand_ins {
+                let names: Vec<String> = est
+                    .terms
+                    .iter()
+                    .filter_map(|t| {
+                        t.note
+                            .as_ref()
+                            .filter(|n| n.starts_with("stand-in"))
+                            .map(|n| format!("{} ({n})", t.label))
+                    })
+                    .collect();
+                format!(
+                    ", with the generic stand-ins for {} in place",
+                    names.join(", ")
+                )
+            } else {
+                String::new()
             };
             let k = n as f64;
             let meas_unc = r.hf_unc.unwrap_or(CRC_HF_UNC_KJ);
@@ -236,7 +324,16 @@ fn main() {
             let unc_hf = meas_unc.hypot(est.hf298_kj.uncertainty) / k;
             let _ = write!(out, "\n{head}\nhf = {hf:.2}\nunc_hf = {unc_hf:.2}\n");
             let mut what = format!("Hf298 {:.2} kJ/mol ({})", r.hf, r.hf_source);
-            if let (Some(s_meas), Some(s_est)) = (r.s, est.s298_j) {
+            if conformational {
+                let _ = write!(
+                    out,
+                    "s = 0.0\nunc_s = 0.0\ncp = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]\nunc_cp = 0.0\n"
+                );
+                what.push_str(
+                    "; S and Cp taken as 0, as for Benson's alkane gauche and 1,5 corrections \
+                     (common practice)",
+                );
+            } else if let (Some(s_meas), Some(s_est)) = (r.s, est.s298_j) {
                 let s = (s_meas - s_est.value) / k;
                 let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
                 let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
@@ -249,7 +346,7 @@ fn main() {
                 toml_string(&format!(
                     "Derived from one measured compound: {} (CAS {}), {} as carried by the \
                      chemicals 1.5.2 package (tests/reference/thermo_reference.tsv), minus the \
-                     other terms of ringheat's tables, divided by {} occurrence(s) \
+                     other terms of ringheat's tables{with}, divided by {} occurrence(s) \
                      (examples/derive_missing_groups.rs, round {round})",
                     r.name, r.cas, what, n
                 ))
@@ -263,6 +360,8 @@ fn main() {
                 &format!("[[group]]\nkey = {}", toml_string(key)),
                 r,
                 *n,
+                false,
+                false,
             ) {
                 used.insert(r.cas.clone());
                 count += 1;
@@ -278,7 +377,16 @@ fn main() {
                      interaction type"
                 )
             );
-            if emit(&mut derived_corrections, &head, r, *n) {
+            // Conformational corrections carry no entropy or heat capacity in Benson's scheme.
+            let conformational = name.starts_with("gauche") || name.starts_with("1,5-interaction");
+            if emit(
+                &mut derived_corrections,
+                &head,
+                r,
+                *n,
+                false,
+                conformational,
+            ) {
                 used.insert(r.cas.clone());
                 count += 1;
             }
@@ -290,7 +398,14 @@ fn main() {
                 toml_string(&format!("ring of {}", r.name)),
                 toml_string(&r.smiles)
             );
-            if emit(&mut derived_rings, &head, r, 1) {
+            if emit(&mut derived_rings, &head, r, 1, joint.contains(i), false) {
+                if joint.contains(i) {
+                    if let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) {
+                        if let Err(EstimateError::MissingGroups(m)) = engine.estimate(&p, &strict) {
+                            absorbed.extend(m.iter().map(|g| g.key.to_string()));
+                        }
+                    }
+                }
                 used.insert(r.cas.clone());
                 count += 1;
             }
@@ -315,6 +430,10 @@ fn main() {
         )
         .expect("write");
         println!("round {round}: derived {count} entries");
+        if count == 0 && stalled {
+            break;
+        }
+        stalled = count == 0;
     }
     let header = |what: &str| {
         format!(

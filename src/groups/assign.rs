@@ -68,9 +68,11 @@ pub fn assign_groups(p: &PerceivedMolecule) -> Result<GroupAssignment, UntypedAt
     Ok(GroupAssignment { groups, types })
 }
 
-/// The generic stand-in for a key the tables lack: every carbon-type ligand taken as `C`,
-/// every nitrogen type as `N`, every sulfur type as `S`. Returns `None` when nothing changes.
-pub fn generic_stand_in(key: &GroupKey) -> Option<GroupKey> {
+/// Stand-ins for a key the tables lack, nearest first: (1) the generic key with every
+/// carbon-type ligand taken as `C`, every nitrogen type as `N`, every sulfur type as `S`; (2) the
+/// key with every aromatic ring nitrogen ligand (`NA`) taken as a benzene carbon `Cb` (an aza
+/// ring atom in place of a CH one; common practice). Keys equal to `key` are left out.
+pub fn stand_in_candidates(key: &GroupKey) -> Vec<GroupKey> {
     let generic = |name: &str| -> String {
         match name {
             "Cd" | "Ct" | "Cb" | "Cbf" | "Ca" | "CO" | "CN" | "CI" | "CS" => "C".to_string(),
@@ -79,13 +81,25 @@ pub fn generic_stand_in(key: &GroupKey) -> Option<GroupKey> {
             other => other.to_string(),
         }
     };
-    let ligands: Vec<String> = key
-        .ligands
-        .iter()
-        .flat_map(|(name, n)| std::iter::repeat_n(generic(name), *n as usize))
-        .collect();
-    let stand_in = GroupKey::new(&key.centre, &ligands);
-    (stand_in != *key).then_some(stand_in)
+    let aza_as_carbon = |name: &str| -> String {
+        match name {
+            "NA" => "Cb".to_string(),
+            other => other.to_string(),
+        }
+    };
+    let mut out: Vec<GroupKey> = Vec::new();
+    for map in [&generic as &dyn Fn(&str) -> String, &aza_as_carbon] {
+        let ligands: Vec<String> = key
+            .ligands
+            .iter()
+            .flat_map(|(name, n)| std::iter::repeat_n(map(name), *n as usize))
+            .collect();
+        let candidate = GroupKey::new(&key.centre, &ligands);
+        if candidate != *key && !out.contains(&candidate) {
+            out.push(candidate);
+        }
+    }
+    out
 }
 
 #[cfg(test)]
@@ -158,9 +172,18 @@ mod tests {
     }
 
     #[test]
-    fn stand_in_generalises_ligands() {
-        let k = GroupKey::parse("C-(Cb)(CO)(H)2").unwrap();
-        assert_eq!(generic_stand_in(&k).unwrap().to_string(), "C-(C)2(H)2");
-        assert!(generic_stand_in(&GroupKey::parse("C-(C)(H)3").unwrap()).is_none());
+    fn stand_ins_generalise_ligands_then_read_aza_as_carbon() {
+        let names = |k: &str| -> Vec<String> {
+            stand_in_candidates(&GroupKey::parse(k).unwrap())
+                .iter()
+                .map(|c| c.to_string())
+                .collect()
+        };
+        assert_eq!(names("C-(Cb)(CO)(H)2"), ["C-(C)2(H)2"]);
+        assert_eq!(
+            names("Cbf-(Cb)(Cbf)(NA)"),
+            ["Cbf-(C)2(N)", "Cbf-(Cb)2(Cbf)"]
+        );
+        assert!(names("C-(C)(H)3").is_empty());
     }
 }

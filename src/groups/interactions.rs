@@ -4,10 +4,19 @@
 //! - `gauche`: for every acyclic single bond between two sp3 carbons with n1 and n2 carbon
 //!   substituents besides each other, n1*n2 - min(n1, n2) gauche pairs (the fewest a staggered
 //!   conformer can have; common practice).
+//! - `gauche-(O)`: the same count for every acyclic single bond between an sp3 carbon and an
+//!   ether oxygen (bonded to two sp3 carbons), the oxygen's other carbon being its one
+//!   substituent: 1 for an isopropyl, 2 for a tert-butyl on the oxygen (counted as Benson counts
+//!   alkane gauche pairs, with the oxygen as a chain atom; common practice).
+//! - `vicinal-(X)2`: for every single bond between two sp3 carbons (ring bonds included), each
+//!   pair of like halogens X, one on each carbon (hexachloroethane: 9 `vicinal-(Cl)2`): halogen
+//!   crowding that the one-carbon halogen groups cannot see (our counting rule). Mixed pairs are
+//!   not counted: the reference data hold too few compounds to give them values.
 //! - `1,5-interaction`: for every pair of sp3 carbons A, B bonded to one sp3 carbon M by acyclic
 //!   bonds, with nA, nB >= 2 carbon substituents besides M, (nA-1)(nB-1)-1 interactions. Chosen to
 //!   give 0 for 2,4-dimethylpentane, 1 for 2,2,4-trimethylpentane and 3 for
 //!   2,2,4,4-tetramethylpentane (counts recalled from memory of Benson's worked examples).
+//!   `1,5-interaction-(O)` is the same count with an ether oxygen as M (di-tert-butyl ether: 3).
 //! - `cis`: for every acyclic C=C, the pairs of non-hydrogen substituents on the same side: one
 //!   for a trisubstituted bond, two for a tetrasubstituted one, and for a 1,2-disubstituted bond
 //!   one if written Z, none if written E or unspecified (then flagged as assumed E).
@@ -70,6 +79,15 @@ fn is_ring_bond(p: &PerceivedMolecule, a: NodeIndex, b: NodeIndex) -> bool {
         .is_some_and(|e| p.rings.is_ring_bond(e))
 }
 
+/// Whether `o` is an ether oxygen: an O centre bonded to two sp3 carbons by acyclic bonds.
+fn is_acyclic_ether_oxygen(p: &PerceivedMolecule, types: &AtomTypes, o: NodeIndex) -> bool {
+    types.centre(o) == Some("O")
+        && p.mol.degree(o) == 2
+        && p.mol
+            .neighbours(o)
+            .all(|(n, _)| is_sp3_carbon(types, n) && !is_ring_bond(p, o, n))
+}
+
 fn carbon_substituents_except(p: &PerceivedMolecule, i: NodeIndex, except: NodeIndex) -> usize {
     p.mol
         .neighbours(i)
@@ -122,11 +140,27 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
         };
         let bond = &mol.graph[e];
         let in_ring = p.rings.is_ring_bond(e);
+        if bond.order == BondOrder::Single && is_sp3_carbon(types, a) && is_sp3_carbon(types, b) {
+            count_vicinal_halogens(p, types, a, b, &mut out);
+        }
         match bond.order {
             BondOrder::Single if !in_ring && is_sp3_carbon(types, a) && is_sp3_carbon(types, b) => {
                 let n1 = carbon_substituents_except(p, a, b) as u32;
                 let n2 = carbon_substituents_except(p, b, a) as u32;
                 out.add("gauche", None, n1 * n2 - n1.min(n2));
+            }
+            BondOrder::Single
+                if !in_ring
+                    && ((is_sp3_carbon(types, a) && is_acyclic_ether_oxygen(p, types, b))
+                        || (is_sp3_carbon(types, b) && is_acyclic_ether_oxygen(p, types, a))) =>
+            {
+                let (c, o) = if is_sp3_carbon(types, a) {
+                    (a, b)
+                } else {
+                    (b, a)
+                };
+                let n = carbon_substituents_except(p, c, o) as u32;
+                out.add("gauche-(O)", None, n.saturating_sub(1));
             }
             _ if types.centre(a) == Some("Cb")
                 && types.centre(b) == Some("Cb")
@@ -166,10 +200,12 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
             _ => {}
         }
     }
-    // 1,5 interactions around every sp3 carbon M.
+    // 1,5 interactions around every sp3 carbon M, and around every ether oxygen M.
     let mut one_five = 0u32;
+    let mut one_five_oxygen = 0u32;
     for m in mol.atoms() {
-        if !is_sp3_carbon(types, m) {
+        let ether = is_acyclic_ether_oxygen(p, types, m);
+        if !is_sp3_carbon(types, m) && !ether {
             continue;
         }
         let arms: Vec<NodeIndex> = mol
@@ -182,13 +218,48 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
                 let nx = carbon_substituents_except(p, x, m) as u32;
                 let ny = carbon_substituents_except(p, y, m) as u32;
                 if nx >= 2 && ny >= 2 {
-                    one_five += (nx - 1) * (ny - 1) - 1;
+                    let n = (nx - 1) * (ny - 1) - 1;
+                    if ether {
+                        one_five_oxygen += n;
+                    } else {
+                        one_five += n;
+                    }
                 }
             }
         }
     }
     out.add("1,5-interaction", None, one_five);
+    out.add("1,5-interaction-(O)", None, one_five_oxygen);
     out
+}
+
+/// Like-halogen pairs across the single bond a-b, one halogen on each carbon.
+fn count_vicinal_halogens(
+    p: &PerceivedMolecule,
+    types: &AtomTypes,
+    a: NodeIndex,
+    b: NodeIndex,
+    out: &mut Interactions,
+) {
+    let halogens = |x: NodeIndex| -> Vec<&'static str> {
+        p.mol
+            .neighbours(x)
+            .filter(|(n, _)| {
+                matches!(
+                    p.mol.atom(*n).element,
+                    Element::F | Element::CL | Element::BR | Element::I
+                )
+            })
+            .map(|(n, _)| types.ligand_name(n))
+            .collect()
+    };
+    let (on_a, on_b) = (halogens(a), halogens(b));
+    for x in &on_a {
+        for y in on_b.iter().filter(|y| *y == x) {
+            let name = super::key::GroupKey::new("vicinal", &[x, y]).to_string();
+            out.add(&name, None, 1);
+        }
+    }
 }
 
 /// Cis pairs across the acyclic double bond a=b, with tert-butyl pairs named apart. Where the
@@ -328,4 +399,61 @@ fn other_substituent_direction(
         BondDirection::Up => BondDirection::Down,
         BondDirection::Down => BondDirection::Up,
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::groups::assign::assign_groups;
+
+    fn count(smiles: &str, name: &str) -> u32 {
+        let p = PerceivedMolecule::from_smiles(smiles).unwrap();
+        let types = assign_groups(&p).unwrap().types;
+        count_interactions(&p, &types)
+            .counts
+            .iter()
+            .find(|c| c.name == name)
+            .map_or(0, |c| c.count)
+    }
+
+    #[test]
+    fn alkane_counts_follow_the_documented_rules() {
+        assert_eq!(count("CC(C)(C)CC(C)(C)C", "1,5-interaction"), 3);
+        assert_eq!(count("CC(C)(C)CC(C)C", "1,5-interaction"), 1);
+        assert_eq!(count("CC(C)CC(C)C", "1,5-interaction"), 0);
+        assert_eq!(count("CCCC", "gauche"), 0);
+        assert_eq!(count("CC(C)C(C)C", "gauche"), 2);
+    }
+
+    #[test]
+    fn ether_oxygen_counts_as_a_chain_atom() {
+        assert_eq!(count("COC(C)(C)C", "gauche-(O)"), 2);
+        assert_eq!(count("CC(C)OC(C)C", "gauche-(O)"), 2);
+        assert_eq!(count("CCOCC", "gauche-(O)"), 0);
+        assert_eq!(count("CC(C)(C)OC(C)(C)C", "gauche-(O)"), 4);
+        assert_eq!(count("CC(C)(C)OC(C)(C)C", "1,5-interaction-(O)"), 3);
+        // Alcohols, esters and ring oxygens are not ether chain atoms here.
+        assert_eq!(count("CC(C)(C)O", "gauche-(O)"), 0);
+        assert_eq!(count("CC(=O)OC(C)(C)C", "gauche-(O)"), 0);
+        assert_eq!(count("CC1(C)CCCO1", "gauche-(O)"), 0);
+    }
+
+    #[test]
+    fn vicinal_halogen_pairs() {
+        assert_eq!(count("ClC(Cl)(Cl)C(Cl)(Cl)Cl", "vicinal-(Cl)2"), 9);
+        assert_eq!(count("FC(F)(F)C(F)(F)Cl", "vicinal-(F)2"), 6);
+        assert_eq!(count("FC(F)(F)C(F)(F)Cl", "vicinal-(F)(Cl)"), 0);
+        assert_eq!(count("ClCCCl", "vicinal-(Cl)2"), 1);
+        assert_eq!(count("ClCC(C)Cl", "vicinal-(Cl)2"), 1);
+        assert_eq!(count("ClC(Cl)C", "vicinal-(Cl)2"), 0);
+        assert_eq!(count("FC1CCCCC1F", "vicinal-(F)2"), 1);
+    }
+
+    #[test]
+    fn cis_and_ortho_pairs() {
+        assert_eq!(count("C/C=C\\C", "cis"), 1);
+        assert_eq!(count("C/C=C/C", "cis"), 0);
+        assert_eq!(count("Cc1ccccc1C", "ortho"), 1);
+        assert_eq!(count("Cc1ccccc1F", "ortho-(C)(F)"), 1);
+    }
 }

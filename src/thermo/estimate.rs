@@ -3,7 +3,7 @@
 use petgraph::graph::NodeIndex;
 
 use super::quantity::{Quantity, GAS_CONSTANT};
-use crate::groups::assign::{assign_groups, generic_stand_in};
+use crate::groups::assign::{assign_groups, stand_in_candidates};
 use crate::groups::interactions::count_interactions;
 use crate::groups::ring_corrections::{RingCorrectionIndex, RingMatch, RingPatternError};
 use crate::groups::table::{GroupTables, TableError, ThermoIncrement, CP_TEMPERATURES_K};
@@ -268,9 +268,10 @@ impl GroupAdditivity {
                 });
                 continue;
             }
-            let stand_in = generic_stand_in(&key)
+            let stand_in = stand_in_candidates(&key)
+                .into_iter()
                 .filter(|_| !options.strict)
-                .and_then(|k| {
+                .find_map(|k| {
                     self.tables
                         .group(&k)
                         .filter(|e| e.values.known.hf)
