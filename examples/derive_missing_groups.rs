@@ -377,8 +377,11 @@ fn main() {
                      interaction type"
                 )
             );
-            // Conformational corrections carry no entropy or heat capacity in Benson's scheme.
-            let conformational = name.starts_with("gauche") || name.starts_with("1,5-interaction");
+            // Conformational corrections carry no entropy or heat capacity in Benson's scheme;
+            // vicinal halogen pairs are treated as gauche-like interactions.
+            let conformational = name.starts_with("gauche")
+                || name.starts_with("1,5-interaction")
+                || name.starts_with("vicinal");
             if emit(
                 &mut derived_corrections,
                 &head,

@@ -56,44 +56,11 @@ struct Figures {
     cp_all: f64,
 }
 
-/// Regression guard: the figures reached so far must not get worse. The floors sit a little
-/// above the measured values (coverage 90.3 %, Hf298 MAE 1.65 overall and 1.30 for C/H/O
-/// kcal/mol, S298 1.48 and Cp298 0.64 cal/(mol K) on 2026-12-02) so that a table change that
-/// loses accuracy fails CI.
+/// The group-additivity issue's targets that are met: coverage >= 90 %, Hf298 MAE <= 1.5
+/// kcal/mol over all species, S298 MAE <= 1.5 and Cp298 MAE <= 1.0 cal/(mol K). The C/H/O Hf298
+/// target (<= 1.0 kcal/mol) is not met (1.21 on 2026-12-02); it is guarded here at 1.25 so that
+/// a table change that loses accuracy fails CI, and asserted in the ignored test below.
 #[test]
-fn group_additivity_does_not_regress() {
-    let f = validate();
-    assert!(
-        f.coverage >= 0.895,
-        "coverage {:.1} % < 89.5 %",
-        100.0 * f.coverage
-    );
-    assert!(
-        f.hf_cho <= 1.40,
-        "C/H/O Hf298 MAE {:.2} > 1.40 kcal/mol",
-        f.hf_cho
-    );
-    assert!(
-        f.hf_all <= 1.75,
-        "Hf298 MAE {:.2} > 1.75 kcal/mol",
-        f.hf_all
-    );
-    assert!(
-        f.s_all <= 1.55,
-        "S298 MAE {:.2} > 1.55 cal/(mol K)",
-        f.s_all
-    );
-    assert!(
-        f.cp_all <= 0.75,
-        "Cp298 MAE {:.2} > 0.75 cal/(mol K)",
-        f.cp_all
-    );
-}
-
-/// The group-additivity issue's targets. Not met yet (see the figures above and the README);
-/// run with `cargo test --release --test thermo_validation -- --ignored --nocapture`.
-#[test]
-#[ignore = "the issue's accuracy targets are not reached yet; the regression guard runs instead"]
 fn group_additivity_meets_the_issue_targets() {
     let f = validate();
     assert!(
@@ -101,17 +68,33 @@ fn group_additivity_meets_the_issue_targets() {
         "coverage {:.1} % < 90 %",
         100.0 * f.coverage
     );
-    assert!(
-        f.hf_cho <= 1.0,
-        "C/H/O Hf298 MAE {:.2} > 1.0 kcal/mol",
-        f.hf_cho
-    );
     assert!(f.hf_all <= 1.5, "Hf298 MAE {:.2} > 1.5 kcal/mol", f.hf_all);
     assert!(f.s_all <= 1.5, "S298 MAE {:.2} > 1.5 cal/(mol K)", f.s_all);
     assert!(
         f.cp_all <= 1.0,
         "Cp298 MAE {:.2} > 1.0 cal/(mol K)",
         f.cp_all
+    );
+    assert!(
+        f.hf_cho <= 1.25,
+        "C/H/O Hf298 MAE {:.2} > 1.25 kcal/mol (regression guard)",
+        f.hf_cho
+    );
+}
+
+/// The issue's C/H/O target. Not met. tools/additivity_floor.py refits every term to this set:
+/// 0.78 kcal/mol on the species fitted, but 1.30 on species left out of the fit (10-fold), worse
+/// than the tables' 1.21; values not tuned to the test species cannot be expected to reach 1.0
+/// on these data. Run with
+/// `cargo test --release --test thermo_validation -- --ignored --nocapture`.
+#[test]
+#[ignore = "the C/H/O Hf298 target (1.0 kcal/mol) is not reached; see the README"]
+fn group_additivity_meets_the_cho_target() {
+    let f = validate();
+    assert!(
+        f.hf_cho <= 1.0,
+        "C/H/O Hf298 MAE {:.2} > 1.0 kcal/mol",
+        f.hf_cho
     );
 }
 
