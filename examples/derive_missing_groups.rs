@@ -14,17 +14,19 @@
 //! compound with the fewest heavy atoms is used (ties: ATcT before CRC, then CAS number). The
 //! value is (measured - sum of the other terms) / occurrences. Rounds repeat until nothing new
 //! can be derived. The compounds used are named in `derived_from`, and the validation test leaves
-//! them out of its statistics. Heat capacities are not derived (one temperature is not a Cp(T)).
+//! them out of its statistics. Heat capacities are derived only where the compound's ideal-gas
+//! Cp(T) is known at every table temperature (tests/reference/trc_heat_capacity.tsv, from the TRC
+//! correlations; one measured Cp298 is not a Cp(T)).
 //!
 //! Run: `cargo run --release --example derive_missing_groups`
 
-use std::collections::{BTreeMap, HashSet};
+use std::collections::{BTreeMap, HashMap, HashSet};
 use std::fmt::Write as _;
 use std::path::{Path, PathBuf};
 
 use ringheat::groups::assign::assign_groups;
 use ringheat::groups::ring_match::correction_skeletons;
-use ringheat::groups::table::GroupTables;
+use ringheat::groups::table::{GroupTables, CP_TEMPERATURES_K};
 use ringheat::molecule::formula::Formula;
 use ringheat::molecule::PerceivedMolecule;
 use ringheat::thermo::estimate::{EstimateError, EstimateOptions, GroupAdditivity};
@@ -33,6 +35,41 @@ use ringheat::thermo::estimate::{EstimateError, EstimateOptions, GroupAdditivity
 const CRC_HF_UNC_KJ: f64 = 2.0;
 /// Assumed uncertainty of a CRC Handbook S298 (J/(mol K)): our choice.
 const CRC_S_UNC_J: f64 = 2.0;
+/// Assumed uncertainty of a Cp from a TRC ideal-gas correlation (J/(mol K)): our choice.
+const TRC_CP_UNC_J: f64 = 2.0;
+
+/// Ideal-gas Cp(T) at the table temperatures by CAS number, from trc_heat_capacity.tsv.
+fn read_heat_capacities(path: &Path) -> HashMap<String, [f64; 7]> {
+    let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+    let mut lines = text
+        .lines()
+        .filter(|l| !l.starts_with('#') && !l.trim().is_empty());
+    let header: Vec<&str> = lines
+        .next()
+        .map(|h| h.split('\t').collect())
+        .unwrap_or_default();
+    let col = |n: &str| {
+        header
+            .iter()
+            .position(|h| *h == n)
+            .unwrap_or_else(|| panic!("column {n}"))
+    };
+    let c_cas = col("cas");
+    let c_cp: Vec<usize> = CP_TEMPERATURES_K
+        .iter()
+        .map(|t| col(&format!("cp{t}_j")))
+        .collect();
+    lines
+        .filter_map(|l| {
+            let c: Vec<&str> = l.split('\t').collect();
+            let mut cp = [0.0; 7];
+            for (v, &i) in cp.iter_mut().zip(&c_cp) {
+                *v = c.get(i)?.parse().ok()?;
+            }
+            Some((c[c_cas].to_string(), cp))
+        })
+        .collect()
+}
 
 struct Reference {
     cas: String,
@@ -139,6 +176,7 @@ fn main() {
     let root = PathBuf::from(env!("CARGO_MANIFEST_DIR"));
     let tables_dir = root.join("group-tables");
     let refs = read_reference(&root.join("tests/reference/thermo_reference.tsv"));
+    let heat_capacities = read_heat_capacities(&root.join("tests/reference/trc_heat_capacity.tsv"));
     let work = root.join("target/derive-groups");
     let _ = std::fs::remove_dir_all(&work);
     std::fs::create_dir_all(&work).expect("work dir");
@@ -257,21 +295,21 @@ fn main() {
         for key in group_candidates.keys() {
             let _ = writeln!(
                 placeholder,
-                "\n[[group]]\nkey = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\nsource = \"placeholder\"",
+                "\n[[group]]\nkey = {}\nhf = 0.0\ns = 0.0\ncp = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]\nunc_hf = 0.0\nunc_s = 0.0\nunc_cp = 0.0\nsource = \"placeholder\"",
                 toml_string(key)
             );
         }
         for name in correction_candidates.keys() {
             let _ = writeln!(
                 placeholder,
-                "\n[[correction]]\nname = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\ncounting = \"placeholder\"\nsource = \"placeholder\"",
+                "\n[[correction]]\nname = {}\nhf = 0.0\ns = 0.0\ncp = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]\nunc_hf = 0.0\nunc_s = 0.0\nunc_cp = 0.0\ncounting = \"placeholder\"\nsource = \"placeholder\"",
                 toml_string(name)
             );
         }
         for (n, i) in ring_chosen.iter().enumerate() {
             let _ = writeln!(
                 placeholder,
-                "\n[[ring]]\nname = \"placeholder {n}\"\nsmiles = {}\nhf = 0.0\ns = 0.0\nunc_hf = 0.0\nunc_s = 0.0\nsource = \"placeholder\"",
+                "\n[[ring]]\nname = \"placeholder {n}\"\nsmiles = {}\nhf = 0.0\ns = 0.0\ncp = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]\nunc_hf = 0.0\nunc_s = 0.0\nunc_cp = 0.0\nsource = \"placeholder\"",
                 toml_string(&refs[*i].smiles)
             );
         }
@@ -333,11 +371,29 @@ fn main() {
                     "; S and Cp taken as 0, as for Benson's alkane gauche and 1,5 corrections \
                      (common practice)",
                 );
-            } else if let (Some(s_meas), Some(s_est)) = (r.s, est.s298_j) {
-                let s = (s_meas - s_est.value) / k;
-                let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
-                let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
-                what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) (CRC)"));
+            } else {
+                if let (Some(s_meas), Some(s_est)) = (r.s, est.s298_j) {
+                    let s = (s_meas - s_est.value) / k;
+                    let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
+                    let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
+                    what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) (CRC)"));
+                }
+                if let (Some(cp_meas), Some(cp_est)) = (heat_capacities.get(&r.cas), est.cp_j) {
+                    let cp: Vec<String> = cp_meas
+                        .iter()
+                        .zip(&cp_est)
+                        .map(|(m, e)| format!("{:.2}", (m - e.value) / k))
+                        .collect();
+                    let unc_cp = cp_est
+                        .iter()
+                        .map(|e| TRC_CP_UNC_J.hypot(e.uncertainty) / k)
+                        .fold(0.0, f64::max);
+                    let _ = write!(out, "cp = [{}]\nunc_cp = {unc_cp:.2}\n", cp.join(", "));
+                    what.push_str(
+                        " and ideal-gas Cp(T) at 300-1500 K (TRC correlation, \
+                         tests/reference/trc_heat_capacity.tsv)",
+                    );
+                }
             }
             let _ = write!(
                 out,

@@ -831,6 +831,46 @@ def make_thermo():
         "elements",
     ]
     write_tsv("thermo_reference.tsv", header, columns, rows)
+    make_trc_heat_capacity(rows)
+
+
+# The table temperatures of ringheat's Cp arrays (group-tables/*.toml, cp_temperatures).
+CP_TEMPERATURES_K = (300, 400, 500, 600, 800, 1000, 1500)
+
+
+def make_trc_heat_capacity(thermo_rows):
+    """Ideal-gas Cp(T) from the TRC correlation for the species of thermo_reference.tsv whose
+    correlation covers every table temperature (used to derive Cp of derived table entries)."""
+    import chemicals.heat_capacity as hc
+
+    rows = []
+    for r in thermo_rows:
+        cas = r["cas"]
+        if cas not in hc.TRC_gas_data.index:
+            continue
+        row = hc.TRC_gas_data.loc[cas]
+        if getattr(row, "ndim", 1) > 1:
+            row = row.iloc[0]
+        tmin, tmax = float(row["Tmin"]), float(row["Tmax"])
+        if not (tmin <= CP_TEMPERATURES_K[0] and CP_TEMPERATURES_K[-1] <= tmax):
+            continue
+        coeffs = [float(row[f"a{i}"]) for i in range(8)]
+        out = {"cas": cas, "name": r["name"], "tmin_k": fmt(tmin, 0), "tmax_k": fmt(tmax, 0)}
+        for t in CP_TEMPERATURES_K:
+            out[f"cp{t}_j"] = fmt(hc.TRCCp(t, *coeffs), 3)
+        rows.append(out)
+    header = [
+        "# ringheat reference: ideal-gas heat capacities Cp(T) in J/(mol K) at ringheat's table",
+        "#   temperatures, for the species of thermo_reference.tsv whose TRC correlation covers",
+        "#   300-1500 K.",
+        "# source: chemicals package, table chemicals.heat_capacity.TRC_gas_data (TRC ideal-gas",
+        "#   heat-capacity coefficients), evaluated with chemicals.heat_capacity.TRCCp.",
+        *versions_header(),
+        "# columns: cas; name (as in thermo_reference.tsv); tmin_k, tmax_k (range of the",
+        "#   correlation); cp300_j ... cp1500_j.",
+    ]
+    columns = ["cas", "name", "tmin_k", "tmax_k"] + [f"cp{t}_j" for t in CP_TEMPERATURES_K]
+    write_tsv("trc_heat_capacity.tsv", header, columns, rows)
 
 
 def main(argv):
