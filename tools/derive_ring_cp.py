@@ -9,19 +9,21 @@ up in the TRC ideal-gas heat-capacity table of the `chemicals` package (TRC_gas_
 
 at the seven table temperatures, with the group and correction terms taken from
 `ringheat estimate --format json SMILES` on the entry's parent SMILES. The correlation is used
-only inside its [Tmin, Tmax]; a 1500 K value beyond Tmax is the parent Cp extrapolated linearly
-from the last two in-range table temperatures (and gets a wider unc_cp). An entry is skipped if
-the parent has no TRC row, if 300-1000 K is not inside the range, or if a term lacks Cp.
+only inside its [Tmin, Tmax]. Where it ends at 1000 K, the ring correction (not the parent Cp,
+which bends more) is extrapolated linearly from its 800 and 1000 K values to 1500 K; the same
+extrapolation on the ring entries whose parents' correlations reach 1500 K (backtest()) sets the
+wider unc_cp of such entries. An entry is skipped if the parent has no TRC row, if 300-1000 K is
+not inside the range, or if a term lacks Cp.
+
+An entry without `derived_from` gets `cp_derived_from = "parent, CAS"`: only its heat capacity
+comes from the parent, which stays an independent check of the published hf and s (the
+validation test leaves it out of the Cp statistics only).
 
     python3 tools/derive_ring_cp.py            # report only
-    python3 tools/derive_ring_cp.py --write    # also insert cp, unc_cp, derived_from, source text
-
-By default only entries that already name `derived_from` are done: for the others (published
-hf/s whose parent is still an independent check in tests/thermo_validation.rs) a cp derived from
-the parent would need `derived_from`, which takes the parent out of the validation statistics of
-hf and s too. `--new-parents` also does those, with the parents of PARENTS.
+    python3 tools/derive_ring_cp.py --write    # also insert cp, unc_cp, cp_derived_from, source text
 """
 import json
+import math
 import re
 import subprocess
 import sys
@@ -38,13 +40,6 @@ TEMPS = [300, 400, 500, 600, 800, 1000, 1500]
 CAL = 4.184
 UNC_IN_RANGE = 1.0
 UNC_EXTRAPOLATED = 2.0
-# Check of the linear extrapolation on ring parents whose TRC correlation reaches 1500 K (the
-# 17 of BACKTEST): it overshoots the correlation's own Cp(1500) by this fraction of the
-# extrapolated 1000-1500 K rise (range over the 17; see backtest()).
-BACKTEST = ["287-92-3", "110-82-7", "291-64-5", "292-64-8", "822-35-5", "142-29-0", "110-83-8",
-            "628-92-2", "592-57-4", "119-64-2", "120-92-3", "108-94-1", "75-21-8", "109-99-9",
-            "123-91-1", "420-12-2", "110-01-0"]
-
 # Parents of entries that name no derived_from: (name, CAS), checked against the package's
 # identifier table (formula) before use.
 PARENTS = {
@@ -67,23 +62,20 @@ PARENTS = {
 
 
 def backtest():
-    """(lowest, highest) overshoot of the 800/1000 K linear extrapolation at 1500 K, as a
-    fraction of the extrapolated rise, and (lowest, highest) in cal/(mol K)."""
-    fr, ab = [], []
-    for cas in BACKTEST:
-        row = TRC_gas_data.loc[cas]
-        a = [float(row[f"a{i}"]) for i in range(8)]
-        c8, c10, c15 = (TRCCp(t, *a) / CAL for t in (800, 1000, 1500))
-        ext = c10 + 2.5 * (c10 - c8)
-        fr.append((ext - c15) / (ext - c10))
-        ab.append(ext - c15)
-    return (min(fr), max(fr)), (min(ab), max(ab))
+    """Errors (cal/(mol K)) of the 800/1000 K linear extrapolation of a ring correction to
+    1500 K, over the ring entries whose cp came from a correlation that reaches 1500 K."""
+    errors = []
+    for fname in FILES + ["rings-derived.toml"]:
+        data = tomllib.loads((ROOT / "group-tables" / fname).read_text())
+        per_cal = 1.0 if data["meta"].get("entropy_unit", "").startswith("cal") else 1.0 / CAL
+        for e in data.get("ring", []):
+            if "cp" not in e or "extrapolated" in e["source"]:
+                continue
+            c = [v * per_cal for v in e["cp"]]
+            errors.append((c[5] + 2.5 * (c[5] - c[4])) - c[6])
+    return errors
 
 
-NEW_PARENTS = "--new-parents" in sys.argv[1:]
-# The linear 800/1000 K extrapolation to 1500 K overshoots (see backtest()), so by default an
-# entry whose parent's correlation stops short of 1500 K gets no cp; `--extrapolate` allows it.
-EXTRAPOLATE = "--extrapolate" in sys.argv[1:]
 
 
 def fmt(x):
@@ -102,14 +94,10 @@ def derive(entry):
     name = entry["name"]
     if "derived_from" in entry:
         pname, cas = [p.strip() for p in entry["derived_from"].rsplit(",", 1)]
-    elif name in PARENTS and NEW_PARENTS:
+    elif name in PARENTS:
         pname, cas = PARENTS[name]
     else:
-        if name in PARENTS and PARENTS[name][1] not in TRC_gas_data.index:
-            return None, f"no TRC row for {PARENTS[name][0]} ({PARENTS[name][1]})"
-        return None, ("no parent named" if name not in PARENTS else
-                      f"its parent {PARENTS[name][0]} is an independent check of the published "
-                      f"hf/s (no derived_from yet); pass --new-parents to derive cp from it anyway")
+        return None, "no parent named"
     if cas not in TRC_gas_data.index:
         return None, f"no TRC row for {pname} ({cas})"
     row = TRC_gas_data.loc[cas]
@@ -131,11 +119,6 @@ def derive(entry):
     coeffs = [float(row[f"a{i}"]) for i in range(8)]
     parent = {t: TRCCp(t, *coeffs) for t in inside}
     extrapolated = 1500 not in parent
-    if extrapolated and not EXTRAPOLATE:
-        return None, f"TRC correlation ends at {tmax:g} K, before 1500 K (pass --extrapolate)"
-    if extrapolated:
-        t1, t2 = inside[-2], inside[-1]
-        parent[1500] = parent[t2] + (parent[t2] - parent[t1]) * (1500 - t2) / (t2 - t1)
     total = [0.0] * 7
     labels = []
     for t in terms:
@@ -148,13 +131,23 @@ def derive(entry):
             total[i] += t["count"] * cp[i]
         labels.append(f"{t['count']} {t['label']}" if t["count"] != 1 else t["label"])
     other = [t["kind"] for t in terms if t["kind"] not in ("Group", "Correction", "Ring")]
-    ring = [(parent[T] - total[i]) / CAL for i, T in enumerate(TEMPS)]
+    ring = [(parent[T] - total[i]) / CAL for i, T in enumerate(TEMPS) if T in parent]
+    if extrapolated:
+        ring.append(ring[5] + (ring[5] - ring[4]) * (1500 - 1000) / (1000 - 800))
+        parent[1500] = float("nan")
     return {
         "pname": pname, "cas": cas, "tmin": tmin, "tmax": tmax, "extrapolated": extrapolated,
         "last_two": inside[-2:], "ring": ring, "labels": labels, "other_kinds": other,
         "parent_cal": [parent[T] / CAL for T in TEMPS], "groups_cal": [v / CAL for v in total],
-        "unc": UNC_EXTRAPOLATED if extrapolated else UNC_IN_RANGE,
+        "unc": extrapolated_unc() if extrapolated else UNC_IN_RANGE,
     }, None
+
+
+def extrapolated_unc():
+    """unc_cp of an entry with an extrapolated 1500 K value: the largest backtest error, at
+    least UNC_EXTRAPOLATED, rounded up to 0.1 cal/(mol K)."""
+    worst = max(abs(e) for e in backtest())
+    return max(UNC_EXTRAPOLATED, math.ceil(worst * 10) / 10)
 
 
 def source_text(r):
@@ -164,10 +157,12 @@ def source_text(r):
          f"group Cp sum ({' + '.join(r['labels'])}; per-term cp_j of `ringheat estimate --format json`)"
          f" at 300-1500 K (tools/derive_ring_cp.py)")
     if r["extrapolated"]:
-        a, b = r["last_two"]
-        s += (f"; the correlation ends at {r['tmax']:g} K, so the parent Cp at 1500 K was "
-              f"extrapolated linearly from its {a} and {b} K values, hence unc_cp "
-              f"{UNC_EXTRAPOLATED} instead of {UNC_IN_RANGE}")
+        errors = backtest()
+        s += (f"; the correlation ends at {r['tmax']:g} K, so the ring correction at 1500 K was "
+              f"extrapolated linearly from its 800 and 1000 K values (on {len(errors)} ring entries "
+              f"whose parents' correlations reach 1500 K the same extrapolation was off by "
+              f"{min(errors):+.2f} to {max(errors):+.2f} cal/(mol K)), hence unc_cp {r['unc']} "
+              f"instead of {UNC_IN_RANGE}")
     s += f"; unc_cp is a judgement of this file's author"
     return s
 
@@ -188,29 +183,14 @@ def write(path, name, r, has_derived):
     assert block[si].endswith('"')
     block[si] = block[si][:-1] + "; " + source_text(r) + '"'
     if not has_derived:
-        block.insert(si + 1, f'derived_from = "{r["pname"]}, {r["cas"]}"')
+        block.insert(si + 1, f'cp_derived_from = "{r["pname"]}, {r["cas"]}"')
     ni = next((i for i, l in enumerate(block) if l.startswith("note = ")), None)
     if ni is not None:
         note = re.sub(r'(?:[.;] )?cp (?:not recalled|left out).*"$', '"', block[ni])
         note = note.replace("hf only", "hf and cp only")
         if not note.endswith('."'):
             note = note[:-1] + '."'
-    else:
-        note = 'note = ""'
-    if r["extrapolated"]:
-        (f1, f2), (a1, a2) = backtest()
-        rise = r["parent_cal"][6] - r["parent_cal"][5]
-        add = (f"The 1500 K cp rests on the linear extrapolation of the parent Cp: on {len(BACKTEST)} "
-               f"ring compounds whose TRC correlation reaches 1500 K the same extrapolation came out "
-               f"{a1:.1f}-{a2:.1f} cal/(mol K) ({f1:.2f}-{f2:.2f} of the extrapolated 1000-1500 K rise) "
-               f"above the correlation, so this 1500 K value is probably too high by about "
-               f"{f1 * rise:.0f}-{f2 * rise:.0f} cal/(mol K), more than unc_cp says; the 300-1000 K values "
-               f"are inside the TRC range.")
-        note = note[:-1] + (" " if note != 'note = ""' else "") + add + '"'
-    if ni is not None:
         block[ni] = note
-    else:
-        block.append(note)
     lines[start:end] = block
     path.write_text("\n".join(lines))
 

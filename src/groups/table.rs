@@ -127,6 +127,9 @@ pub struct GroupEntry {
     pub same_as: Option<GroupKey>,
     /// The measured compound the value was derived from (`name, CAS`), if any.
     pub derived_from: Option<String>,
+    /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
+    /// stays an independent check of `hf` and `s`.
+    pub cp_derived_from: Option<String>,
     /// Where the entry was read.
     pub origin: EntryOrigin,
 }
@@ -144,6 +147,9 @@ pub struct CorrectionEntry {
     pub source: String,
     /// The measured compound the value was derived from, if any.
     pub derived_from: Option<String>,
+    /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
+    /// stays an independent check of `hf` and `s`.
+    pub cp_derived_from: Option<String>,
     /// Where the entry was read.
     pub origin: EntryOrigin,
 }
@@ -161,6 +167,9 @@ pub struct RingEntry {
     pub source: String,
     /// The measured compound the value was derived from, if any.
     pub derived_from: Option<String>,
+    /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
+    /// stays an independent check of `hf` and `s`.
+    pub cp_derived_from: Option<String>,
     /// The symmetry number of the parent molecule that the entropy value assumed (Benson's
     /// tables use the real point group: cyclohexane chair 6). `None`: the value already follows
     /// the tool's flat-graph convention. The estimate converts between the two.

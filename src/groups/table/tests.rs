@@ -313,3 +313,21 @@ fn bundled_tables_load() {
         assert_eq!(on_alkene.values, tables.group(&methyl).unwrap().values);
     }
 }
+
+#[test]
+fn provenance_fields_are_kept_apart() {
+    let text = format!(
+        "{META_KCAL}{}derived_from = \"test compound, 1-23-4\"\ncp_derived_from = \"other compound, 5-67-8\"\n",
+        METHYL
+    );
+    let (_dir, result) = load_one(&text);
+    let tables = result.expect("loads");
+    let entry = tables
+        .group(&GroupKey::parse("C-(C)(H)3").unwrap())
+        .unwrap();
+    assert_eq!(entry.derived_from.as_deref(), Some("test compound, 1-23-4"));
+    assert_eq!(
+        entry.cp_derived_from.as_deref(),
+        Some("other compound, 5-67-8")
+    );
+}
