@@ -5,18 +5,25 @@
 //! Rule (fixed in advance, independent of how well anything fits): a compound of
 //! tests/reference/thermo_reference.tsv qualifies when, with every other table entry present, it
 //! lacks exactly one group, or else exactly one kind of correction (e.g. `ortho-(F)2`), or else
-//! exactly one ring system. When no compound qualifies any more, a compound also qualifies for
-//! its one missing ring system when every group it lacks sits on an atom of that ring system
-//! (thiophene: `S-(Cd)2` occurs only in the ring); the ring correction is then derived with the
-//! lacking groups' generic stand-ins in place, as the estimator uses them, and says so; those
-//! groups are not derived afterwards (the ring value holds their stand-ins). For each
-//! missing entry the
-//! compound with the fewest heavy atoms is used (ties: ATcT before CRC, then CAS number). The
-//! value is (measured - sum of the other terms) / occurrences. Rounds repeat until nothing new
-//! can be derived. The compounds used are named in `derived_from`, and the validation test leaves
-//! them out of its statistics. Heat capacities are derived only where the compound's ideal-gas
-//! Cp(T) is known at every table temperature (tests/reference/trc_heat_capacity.tsv, from the TRC
-//! correlations; one measured Cp298 is not a Cp(T)).
+//! exactly one ring system. For each missing entry the compound with the fewest heavy atoms is
+//! used (ties: ATcT before CRC, then CAS number). The value is (measured - sum of the other
+//! terms) / occurrences. A compound that would also lean on another entry derived in the same
+//! round waits for a later round, so that no value absorbs another's effect. Rounds repeat until
+//! nothing new can be derived.
+//!
+//! When no compound qualifies any more, a compound also qualifies for its one missing ring
+//! system when every group it lacks sits on an atom of that ring system and no reference
+//! compound has that group outside a ring (thiophene: `S-(Cd)2`), and no correction is missing;
+//! the ring correction is then derived with the lacking groups' generic stand-ins in place, as
+//! the estimator uses them, and says so; those groups are not derived afterwards (the ring value
+//! holds their stand-ins).
+//!
+//! The compounds used are named in `derived_from`, and the validation test leaves them out of
+//! its statistics (tests/derived_entries.rs checks that each is reproduced). Entropies come from
+//! the CRC S298, else from the TRC correlation; heat capacities only where the compound's
+//! ideal-gas Cp(T) is known at every table temperature (tests/reference/trc_heat_capacity.tsv;
+//! one measured Cp298 is not a Cp(T)). Conformational corrections (gauche, 1,5, vicinal) take
+//! S and Cp 0.
 //!
 //! Run: `cargo run --release --example derive_missing_groups`
 
@@ -33,13 +40,20 @@ use ringheat::thermo::estimate::{EstimateError, EstimateOptions, GroupAdditivity
 
 /// Assumed uncertainty of a CRC Handbook Hf298 without its own (kJ/mol): our choice.
 const CRC_HF_UNC_KJ: f64 = 2.0;
-/// Assumed uncertainty of a CRC Handbook S298 (J/(mol K)): our choice.
+/// Assumed uncertainty of a CRC Handbook (or TRC correlation) S298 (J/(mol K)): our choice.
 const CRC_S_UNC_J: f64 = 2.0;
 /// Assumed uncertainty of a Cp from a TRC ideal-gas correlation (J/(mol K)): our choice.
 const TRC_CP_UNC_J: f64 = 2.0;
 
-/// Ideal-gas Cp(T) at the table temperatures by CAS number, from trc_heat_capacity.tsv.
-fn read_heat_capacities(path: &Path) -> HashMap<String, [f64; 7]> {
+/// Ideal-gas S298 and Cp(T) of one compound from the TRC correlation (trc_heat_capacity.tsv).
+struct TrcData {
+    s298_j: Option<f64>,
+    /// Cp at every table temperature, when the correlation covers them all.
+    cp_j: Option<[f64; 7]>,
+}
+
+/// TRC data by CAS number.
+fn read_trc(path: &Path) -> HashMap<String, TrcData> {
     let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
     let mut lines = text
         .lines()
@@ -54,19 +68,28 @@ fn read_heat_capacities(path: &Path) -> HashMap<String, [f64; 7]> {
             .position(|h| *h == n)
             .unwrap_or_else(|| panic!("column {n}"))
     };
-    let c_cas = col("cas");
+    let (c_cas, c_s) = (col("cas"), col("s298_j"));
     let c_cp: Vec<usize> = CP_TEMPERATURES_K
         .iter()
         .map(|t| col(&format!("cp{t}_j")))
         .collect();
     lines
-        .filter_map(|l| {
+        .map(|l| {
             let c: Vec<&str> = l.split('\t').collect();
+            let number = |i: usize| c.get(i).and_then(|v| v.parse::<f64>().ok());
             let mut cp = [0.0; 7];
+            let mut complete = true;
             for (v, &i) in cp.iter_mut().zip(&c_cp) {
-                *v = c.get(i)?.parse().ok()?;
+                match number(i) {
+                    Some(x) => *v = x,
+                    None => complete = false,
+                }
             }
-            Some((c[c_cas].to_string(), cp))
+            let data = TrcData {
+                s298_j: number(c_s),
+                cp_j: complete.then_some(cp),
+            };
+            (c[c_cas].to_string(), data)
         })
         .collect()
 }
@@ -138,11 +161,43 @@ fn priority(r: &Reference) -> Priority {
 
 /// Whether the compound lacks exactly one ring system and, besides it, only groups whose atoms all
 /// lie in that ring system, with a generic stand-in for each.
+/// Group keys that some reference compound has on an atom outside every ring: such a group is
+/// not a ring's own and must not be absorbed into a ring correction.
+fn groups_outside_rings(refs: &[Reference]) -> HashSet<String> {
+    let mut out = HashSet::new();
+    for r in refs {
+        let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
+            continue;
+        };
+        let Ok(assignment) = assign_groups(&p) else {
+            continue;
+        };
+        for g in &assignment.groups {
+            if !p
+                .rings
+                .rings
+                .iter()
+                .any(|ring| ring.atoms.contains(&g.atom))
+            {
+                out.insert(g.key.to_string());
+            }
+        }
+    }
+    out
+}
+
 fn lacks_only_ring_groups(
     engine: &GroupAdditivity,
     p: &PerceivedMolecule,
     missing: &[ringheat::thermo::estimate::MissingGroup],
+    outside_rings: &HashSet<String>,
 ) -> bool {
+    if missing
+        .iter()
+        .any(|m| outside_rings.contains(&m.key.to_string()))
+    {
+        return false;
+    }
     let skeletons = correction_skeletons(p);
     let [skeleton] = skeletons.as_slice() else {
         return false;
@@ -158,6 +213,10 @@ fn lacks_only_ring_groups(
     let Ok(est) = engine.estimate(p, &EstimateOptions::default()) else {
         return false;
     };
+    // Corrections dropped or stood in for would be absorbed too.
+    if est.flags.iter().any(|f| f.contains("correction")) {
+        return false;
+    }
     let ring_fallback = est.terms.iter().any(|t| {
         t.kind == ringheat::thermo::estimate::TermKind::Ring
             && t.note.as_deref().is_some_and(|n| n.starts_with("fallback"))
@@ -169,6 +228,9 @@ fn toml_string(s: &str) -> String {
     format!("\"{}\"", s.replace('\\', "\\\\").replace('"', "\\\""))
 }
 
+/// Upper bound on derivation rounds (each round may enable the next).
+const ROUNDS: u32 = 16;
+
 const META: &str = "[meta]\nenthalpy_unit = \"kJ/mol\"\nentropy_unit = \"J/(mol K)\"\n\
 cp_temperatures = [300, 400, 500, 600, 800, 1000, 1500]\n";
 
@@ -176,7 +238,8 @@ fn main() {
     let root = PathBuf::from(env!("CARGO_MANIFEST_DIR"));
     let tables_dir = root.join("group-tables");
     let refs = read_reference(&root.join("tests/reference/thermo_reference.tsv"));
-    let heat_capacities = read_heat_capacities(&root.join("tests/reference/trc_heat_capacity.tsv"));
+    let trc = read_trc(&root.join("tests/reference/trc_heat_capacity.tsv"));
+    let outside_rings = groups_outside_rings(&refs);
     let work = root.join("target/derive-groups");
     let _ = std::fs::remove_dir_all(&work);
     std::fs::create_dir_all(&work).expect("work dir");
@@ -215,7 +278,7 @@ fn main() {
     let mut absorbed: HashSet<String> = HashSet::new();
     // Set after a round that derived nothing: the next round tries the joint ring derivations.
     let mut stalled = false;
-    for round in 1..=12 {
+    for round in 1..=ROUNDS {
         let engine = GroupAdditivity::new(GroupTables::load_dir(&work).expect("tables load"))
             .expect("ring patterns");
         // Missing key -> (priority, reference index, occurrences).
@@ -233,7 +296,7 @@ fn main() {
             };
             match engine.estimate(&p, &strict) {
                 Err(EstimateError::MissingGroups(m))
-                    if stalled && lacks_only_ring_groups(&engine, &p, &m) =>
+                    if stalled && lacks_only_ring_groups(&engine, &p, &m, &outside_rings) =>
                 {
                     joint_candidates.push((priority(r), i));
                 }
@@ -287,8 +350,14 @@ fn main() {
         }
         if group_candidates.is_empty() && ring_chosen.is_empty() && correction_candidates.is_empty()
         {
-            println!("round {round}: nothing more to derive");
-            break;
+            if stalled {
+                println!("round {round}: nothing more to derive");
+                break;
+            }
+            // Nothing qualifies by the plain rule: try the joint ring derivations next.
+            println!("round {round}: nothing by the plain rule");
+            stalled = true;
+            continue;
         }
         // Zero placeholders, then the estimate of each chosen compound gives the rest.
         let mut placeholder = String::from(META);
@@ -320,8 +389,12 @@ fn main() {
         let mut derived_rings = String::new();
         let mut derived_corrections = String::new();
         let mut count = 0;
+        // `own`: the label of the placeholder term this compound derives; an estimate that also
+        // leans on another placeholder (an entry derived in the same round) would absorb that
+        // entry's effect as well, so it waits for a later round.
         let emit = |out: &mut String,
                     head: &str,
+                    own: &str,
                     r: &Reference,
                     n: u32,
                     stand_ins: bool,
@@ -338,6 +411,17 @@ fn main() {
                     return false;
                 }
             };
+            if let Some(other) = est
+                .terms
+                .iter()
+                .find(|t| t.source == "placeholder" && t.label != own)
+            {
+                println!(
+                    "  {} ({}) waits: it also needs {}, derived in this round",
+                    r.name, r.cas, other.label
+                );
+                return false;
+            }
             let with = if stand_ins {
                 let names: Vec<String> = est
                     .terms
@@ -361,24 +445,33 @@ fn main() {
             let hf = (r.hf - est.hf298_kj.value) / k;
             let unc_hf = meas_unc.hypot(est.hf298_kj.uncertainty) / k;
             let _ = write!(out, "\n{head}\nhf = {hf:.2}\nunc_hf = {unc_hf:.2}\n");
-            let mut what = format!("Hf298 {:.2} kJ/mol ({})", r.hf, r.hf_source);
+            let mut what = format!(
+                "Hf298 {:.2} kJ/mol ({}, thermo_reference.tsv)",
+                r.hf, r.hf_source
+            );
             if conformational {
                 let _ = write!(
                     out,
                     "s = 0.0\nunc_s = 0.0\ncp = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]\nunc_cp = 0.0\n"
                 );
                 what.push_str(
-                    "; S and Cp taken as 0, as for Benson's alkane gauche and 1,5 corrections \
-                     (common practice)",
+                    "; S and Cp taken as 0, as Benson does for the alkane gauche and 1,5 \
+                     corrections (our choice for the other conformational corrections)",
                 );
             } else {
-                if let (Some(s_meas), Some(s_est)) = (r.s, est.s298_j) {
+                let trc_of = trc.get(&r.cas);
+                let s_measured = match (r.s, trc_of.and_then(|t| t.s298_j)) {
+                    (Some(s), _) => Some((s, "CRC, thermo_reference.tsv")),
+                    (None, Some(s)) => Some((s, "TRC correlation, trc_heat_capacity.tsv")),
+                    (None, None) => None,
+                };
+                if let (Some((s_meas, s_from)), Some(s_est)) = (s_measured, est.s298_j) {
                     let s = (s_meas - s_est.value) / k;
                     let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
                     let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
-                    what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) (CRC)"));
+                    what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) ({s_from})"));
                 }
-                if let (Some(cp_meas), Some(cp_est)) = (heat_capacities.get(&r.cas), est.cp_j) {
+                if let (Some(cp_meas), Some(cp_est)) = (trc_of.and_then(|t| t.cp_j), est.cp_j) {
                     let cp: Vec<String> = cp_meas
                         .iter()
                         .zip(&cp_est)
@@ -391,7 +484,7 @@ fn main() {
                     let _ = write!(out, "cp = [{}]\nunc_cp = {unc_cp:.2}\n", cp.join(", "));
                     what.push_str(
                         " and ideal-gas Cp(T) at 300-1500 K (TRC correlation, \
-                         tests/reference/trc_heat_capacity.tsv)",
+                         trc_heat_capacity.tsv)",
                     );
                 }
             }
@@ -400,10 +493,10 @@ fn main() {
                 "derived_from = {}\nsource = {}\n",
                 toml_string(&format!("{}, {}", r.name, r.cas)),
                 toml_string(&format!(
-                    "Derived from one measured compound: {} (CAS {}), {} as carried by the \
-                     chemicals 1.5.2 package (tests/reference/thermo_reference.tsv), minus the \
-                     other terms of ringheat's tables{with}, divided by {} occurrence(s) \
-                     (examples/derive_missing_groups.rs, round {round})",
+                    "Derived from one measured compound: {} (CAS {}): {}, minus the other \
+                     terms of ringheat's tables{with}, divided by {} occurrence(s); measured \
+                     values as carried by the chemicals 1.5.2 package, files in \
+                     tests/reference/ (examples/derive_missing_groups.rs, round {round})",
                     r.name, r.cas, what, n
                 ))
             );
@@ -414,6 +507,7 @@ fn main() {
             if emit(
                 &mut derived_groups,
                 &format!("[[group]]\nkey = {}", toml_string(key)),
+                key,
                 r,
                 *n,
                 false,
@@ -441,6 +535,7 @@ fn main() {
             if emit(
                 &mut derived_corrections,
                 &head,
+                name,
                 r,
                 *n,
                 false,
@@ -450,14 +545,23 @@ fn main() {
                 count += 1;
             }
         }
-        for i in &ring_chosen {
+        for (n, i) in ring_chosen.iter().enumerate() {
             let r = &refs[*i];
             let head = format!(
                 "[[ring]]\nname = {}\nsmiles = {}",
                 toml_string(&format!("ring of {}", r.name)),
                 toml_string(&r.smiles)
             );
-            if emit(&mut derived_rings, &head, r, 1, joint.contains(i), false) {
+            let own = format!("placeholder {n}");
+            if emit(
+                &mut derived_rings,
+                &head,
+                &own,
+                r,
+                1,
+                joint.contains(i),
+                false,
+            ) {
                 if joint.contains(i) {
                     if let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) {
                         if let Err(EstimateError::MissingGroups(m)) = engine.estimate(&p, &strict) {
@@ -489,6 +593,11 @@ fn main() {
         )
         .expect("write");
         println!("round {round}: derived {count} entries");
+        if round == ROUNDS {
+            println!(
+                "stopped after {ROUNDS} rounds with entries still being derived: raise ROUNDS"
+            );
+        }
         if count == 0 && stalled {
             break;
         }

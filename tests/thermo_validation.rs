@@ -3,7 +3,8 @@
 //!
 //! Prints coverage and mean absolute errors by class and the 15 worst species, and asserts the
 //! thresholds of the group-additivity issue. Species that a table entry was derived from
-//! (`derived_from` names their CAS number; `cp_derived_from` for the heat capacity only) are
+//! (`derived_from` names their CAS number; `s_derived_from` and `cp_derived_from` for the
+//! entropy or the heat capacity only) are
 //! left out of the error statistics (of that property), since their
 //! error is zero by construction.
 
@@ -49,6 +50,7 @@ fn mae(values: impl Iterator<Item = f64>) -> (f64, usize) {
 }
 
 /// Figures of one validation run.
+#[derive(Clone, Copy)]
 struct Figures {
     coverage: f64,
     hf_all: f64,
@@ -58,9 +60,7 @@ struct Figures {
 }
 
 /// The group-additivity issue's targets that are met: coverage >= 90 %, Hf298 MAE <= 1.5
-/// kcal/mol over all species, S298 MAE <= 1.5 and Cp298 MAE <= 1.0 cal/(mol K). The C/H/O Hf298
-/// target (<= 1.0 kcal/mol) is not met (1.21 on 2026-12-02); it is guarded here at 1.25 so that
-/// a table change that loses accuracy fails CI, and asserted in the ignored test below.
+/// kcal/mol over all species, S298 MAE <= 1.5 and Cp298 MAE <= 1.0 cal/(mol K).
 #[test]
 fn group_additivity_meets_the_issue_targets() {
     let f = validate();
@@ -76,17 +76,34 @@ fn group_additivity_meets_the_issue_targets() {
         "Cp298 MAE {:.2} > 1.0 cal/(mol K)",
         f.cp_all
     );
-    assert!(
-        f.hf_cho <= 1.25,
-        "C/H/O Hf298 MAE {:.2} > 1.25 kcal/mol (regression guard)",
-        f.hf_cho
-    );
 }
 
-/// The issue's C/H/O target. Not met. tools/additivity_floor.py refits every term to this set:
-/// 0.78 kcal/mol on the species fitted, but 1.30 on species left out of the fit (10-fold), worse
-/// than the tables' 1.21; values not tuned to the test species cannot be expected to reach 1.0
-/// on these data. Run with
+/// Regression floors a little above the figures of 2026-12-02 (coverage 90.9 %, Hf298 MAE 1.39
+/// overall and 1.18 for C/H/O kcal/mol, S298 1.45 and Cp298 0.60 cal/(mol K)), so that a table
+/// or code change that loses accuracy fails CI even while the targets still hold.
+#[test]
+fn group_additivity_does_not_regress() {
+    let f = validate();
+    let floors = [
+        ("coverage", -f.coverage, -0.905),
+        ("Hf298 MAE, all", f.hf_all, 1.42),
+        ("Hf298 MAE, C/H/O", f.hf_cho, 1.20),
+        ("S298 MAE", f.s_all, 1.48),
+        ("Cp298 MAE", f.cp_all, 0.63),
+    ];
+    for (what, value, floor) in floors {
+        assert!(
+            value <= floor,
+            "{what}: {:.3} is past its floor {:.3}",
+            value.abs(),
+            floor.abs()
+        );
+    }
+}
+
+/// The issue's C/H/O target (1.0 kcal/mol). Not met: 1.18 on 2026-12-02. For scale,
+/// tools/additivity_floor.py refits every term to this set: below 0.8 on the species fitted, but
+/// about 1.3 on species left out of the fit (10-fold), worse than the tables. Run with
 /// `cargo test --release --test thermo_validation -- --ignored --nocapture`.
 #[test]
 #[ignore = "the C/H/O Hf298 target (1.0 kcal/mol) is not reached; see the README"]
@@ -99,27 +116,35 @@ fn group_additivity_meets_the_cho_target() {
     );
 }
 
-/// Runs the comparison, prints the report and returns the figures.
+/// The figures, computed (and the report printed) once for all tests of this file.
 fn validate() -> Figures {
+    static FIGURES: std::sync::OnceLock<Figures> = std::sync::OnceLock::new();
+    *FIGURES.get_or_init(run_validation)
+}
+
+/// Runs the comparison, prints the report and returns the figures.
+fn run_validation() -> Figures {
     let engine = GroupAdditivity::bundled().expect("bundled tables load");
     // CAS numbers that table values were derived from (all properties, or Cp only).
     let t = &engine.tables;
     let provenance = t
         .groups()
-        .map(|g| (&g.derived_from, &g.cp_derived_from))
+        .map(|g| (&g.derived_from, &g.s_derived_from, &g.cp_derived_from))
         .chain(
             t.corrections()
-                .map(|c| (&c.derived_from, &c.cp_derived_from)),
+                .map(|c| (&c.derived_from, &c.s_derived_from, &c.cp_derived_from)),
         )
         .chain(
             t.rings()
                 .iter()
-                .map(|r| (&r.derived_from, &r.cp_derived_from)),
+                .map(|r| (&r.derived_from, &r.s_derived_from, &r.cp_derived_from)),
         );
     let mut derived: HashSet<String> = HashSet::new();
+    let mut s_derived: HashSet<String> = HashSet::new();
     let mut cp_derived: HashSet<String> = HashSet::new();
-    for (all, cp_only) in provenance {
+    for (all, s_only, cp_only) in provenance {
         derived.extend(all.iter().flat_map(|d| cas_numbers(d)));
+        s_derived.extend(s_only.iter().flat_map(|d| cas_numbers(d)));
         cp_derived.extend(cp_only.iter().flat_map(|d| cas_numbers(d)));
     }
 
@@ -163,6 +188,7 @@ fn validate() -> Figures {
         let measured = |c: usize| row.get(c).parse::<f64>().ok();
         let Some(hf) = measured(c_hf) else { continue };
         let s_err = measured(c_s)
+            .filter(|_| !s_derived.contains(&cas))
             .zip(est.s298_j)
             .map(|(m, e)| (e.value - m) / KJ_PER_KCAL);
         let cp_err = measured(c_cp)

@@ -1,5 +1,5 @@
 #!/usr/bin/env python3
-"""Derive the Cp(T) arrays of ring corrections from their parent compounds.
+"""Derive the Cp(T) arrays (and missing S298) of ring corrections from their parent compounds.
 
 For every [[ring]] entry of group-tables/rings-{carbocyclic,heterocyclic,polycyclic}.toml that has
 no `cp`, the parent compound (the entry's `derived_from`, else the CAS in PARENTS below) is looked
@@ -14,6 +14,11 @@ which bends more) is extrapolated linearly from its 800 and 1000 K values to 150
 extrapolation on the ring entries whose parents' correlations reach 1500 K (backtest()) sets the
 wider unc_cp of such entries. An entry is skipped if the parent has no TRC row, if 300-1000 K is
 not inside the range, or if a term lacks Cp.
+
+An entry without `s` gets one the same way from the parent's TRC S298 (coefficients and entropy
+constant J), minus the groups' S and R ln(n/sigma) with the tool's own symmetry numbers, so the
+value follows the flat-graph convention and the entry loses `parent_symmetry`; it gets
+`s_derived_from`.
 
 An entry without `derived_from` gets `cp_derived_from = "parent, CAS"`: only its heat capacity
 comes from the parent, which stays an independent check of the published hf and s (the
@@ -31,7 +36,7 @@ import tomllib
 from pathlib import Path
 
 import chemicals
-from chemicals.heat_capacity import TRC_gas_data, TRCCp
+from chemicals.heat_capacity import TRC_gas_data, TRCCp, TRCCp_integral_over_T
 from chemicals.identifiers import search_chemical
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -53,6 +58,7 @@ PARENTS = {
     "oxetane": ("oxetane", "503-30-0"),
     "aziridine": ("aziridine", "151-56-4"),
     "pyrrolidine": ("pyrrolidine", "123-75-1"),
+    "pyridine": ("pyridine", "110-86-1"),
     "thiirane": ("thiirane", "420-12-2"),
     "thiolane": ("thiolane", "110-01-0"),
     "spiropentane": ("spiropentane", "157-40-4"),
@@ -66,8 +72,8 @@ _BACKTEST = []
 
 def backtest():
     """Errors (cal/(mol K)) of the 800/1000 K linear extrapolation of a ring correction to
-    1500 K, over the ring entries whose cp came from a correlation that reaches 1500 K. Taken
-    once, from the tables as they were when the run started."""
+    1500 K, over the ring entries whose cp came from a TRC correlation that reaches 1500 K.
+    Taken once, from the tables as they were when the run started."""
     if _BACKTEST:
         return _BACKTEST
     errors = []
@@ -75,7 +81,9 @@ def backtest():
         data = tomllib.loads((ROOT / "group-tables" / fname).read_text())
         per_cal = 1.0 if data["meta"].get("entropy_unit", "").startswith("cal") else 1.0 / CAL
         for e in data.get("ring", []):
-            if "cp" not in e or "extrapolated" in e["source"]:
+            src = e["source"]
+            from_trc = "cp derived: TRC" in src or "Cp(T) at 300-1500 K (TRC" in src
+            if "cp" not in e or not from_trc or "extrapolated" in src:
                 continue
             c = [v * per_cal for v in e["cp"]]
             errors.append((c[5] + 2.5 * (c[5] - c[4])) - c[6])
@@ -146,15 +154,125 @@ def derive(entry):
         "pname": pname, "cas": cas, "tmin": tmin, "tmax": tmax, "extrapolated": extrapolated,
         "last_two": inside[-2:], "ring": ring, "labels": labels, "other_kinds": other,
         "parent_cal": [parent[T] / CAL for T in TEMPS], "groups_cal": [v / CAL for v in total],
-        "unc": extrapolated_unc() if extrapolated else UNC_IN_RANGE,
+        "unc": extrapolated_unc(ring) if extrapolated else UNC_IN_RANGE,
     }, None
 
 
-def extrapolated_unc():
-    """unc_cp of an entry with an extrapolated 1500 K value: the largest backtest error, at
-    least UNC_EXTRAPOLATED, rounded up to 0.1 cal/(mol K)."""
+def extrapolated_unc(ring):
+    """unc_cp (cal/(mol K)) of an entry whose 1500 K value `ring[6]` was extrapolated: the
+    largest backtest error, at least UNC_EXTRAPOLATED, and at least half the extrapolated
+    1000-1500 K change (a steep extrapolation is less sure than the backtest's), rounded up to
+    0.1."""
     worst = max(abs(e) for e in backtest())
-    return max(UNC_EXTRAPOLATED, math.ceil(worst * 10) / 10)
+    half_rise = 0.5 * abs(ring[6] - ring[5])
+    return max(UNC_EXTRAPOLATED, math.ceil(max(worst, half_rise) * 10) / 10)
+
+
+BACKTEST_TEXT = re.compile(
+    r"\(on \d+ ring entries whose parents' correlations reach 1500 K the same extrapolation "
+    r"was off by [-+0-9.]+ to [-+0-9.]+ cal/\(mol K\)\), hence unc_cp [0-9.]+ instead of"
+)
+
+
+def backtest_text(unc):
+    errors = backtest()
+    return (f"(on {len(errors)} ring entries whose parents' correlations reach 1500 K the same "
+            f"extrapolation was off by {min(errors):+.2f} to {max(errors):+.2f} cal/(mol K)), "
+            f"hence unc_cp {unc} instead of")
+
+
+def refresh_extrapolated(path):
+    """Brings unc_cp and the backtest figures of entries with an extrapolated 1500 K cp up to
+    date (the rule or the backtest set may have changed since they were written)."""
+    text = path.read_text()
+    data = tomllib.loads(text)
+    lines = text.split("\n")
+    for e in data.get("ring", []):
+        if "cp" not in e or not BACKTEST_TEXT.search(e["source"]):
+            continue
+        unc = extrapolated_unc(e["cp"])
+        start = next(i for i, l in enumerate(lines) if l == f'name = "{e["name"]}"')
+        end = start + 1
+        while end < len(lines) and lines[end].strip() and not lines[end].startswith("[["):
+            end += 1
+        for i in range(start, end):
+            if lines[i].startswith("unc_cp = "):
+                lines[i] = f"unc_cp = {unc}"
+            elif lines[i].startswith("source = "):
+                lines[i] = BACKTEST_TEXT.sub(backtest_text(unc), lines[i])
+    path.write_text("\n".join(lines))
+
+
+R_GAS = 8.314462618
+UNC_S = 1.0  # cal/(mol K), judgement of this file's author
+
+
+def derive_entropy(entry):
+    """(result dict, None) with the ring entropy from the parent's TRC S298, or (None, reason)."""
+    name = entry["name"]
+    if "derived_from" in entry:
+        pname, cas = [p.strip() for p in entry["derived_from"].rsplit(",", 1)]
+    elif name in PARENTS:
+        pname, cas = PARENTS[name]
+    else:
+        return None, "no parent named"
+    if cas not in TRC_gas_data.index:
+        return None, f"no TRC row for {pname} ({cas})"
+    row = TRC_gas_data.loc[cas]
+    if float(row.Tmin) > 298.15:
+        return None, f"TRC range starts at {float(row.Tmin):g} K, above 298.15 K"
+    coeffs = [float(row[f"a{i}"]) for i in range(8)]
+    s_parent = TRCCp_integral_over_T(298.15, *coeffs, J=float(row.J))
+    rec = estimate(entry["smiles"])
+    est = rec["estimate"]
+    terms = est["terms"]
+    rings = [t for t in terms if t["kind"] == "Ring"]
+    if len(rings) != 1 or rings[0]["label"] != name or rings[0]["count"] != 1:
+        return None, f"ring terms of the parent are {[(t['label'], t['count']) for t in rings]}"
+    total, labels = 0.0, []
+    for t in terms:
+        if t["kind"] not in ("Group", "Correction"):
+            continue
+        if not t["per_unit"]["known"]["s"]:
+            return None, f"term {t['label']} has no S"
+        total += t["count"] * t["per_unit"]["s_j"]
+        labels.append(f"{t['count']} {t['label']}" if t["count"] != 1 else t["label"])
+    sym = est["symmetry"]
+    symmetry_term = R_GAS * (math.log(sym["optical_isomers"]) - math.log(sym["total"]))
+    ring = (s_parent - total - symmetry_term) / CAL
+    return {
+        "pname": pname, "cas": cas, "s_parent": s_parent, "ring": ring, "labels": labels,
+        "sigma": sym["total"], "optical": sym["optical_isomers"],
+        "range": (float(row.Tmin), float(row.Tmax)),
+    }, None
+
+
+def write_entropy(path, name, r, has_derived):
+    """Insert s, unc_s, s_derived_from and the source text; the value follows the tool's
+    flat-graph symmetry convention, so a `parent_symmetry` line is removed."""
+    lines = path.read_text().split("\n")
+    start = next(i for i, l in enumerate(lines) if l == f'name = "{name}"')
+    end = start + 1
+    while end < len(lines) and lines[end].strip() and not lines[end].startswith("[["):
+        end += 1
+    block = [l for l in lines[start:end] if not l.startswith("parent_symmetry = ")]
+    hi = next(i for i, l in enumerate(block) if l.startswith("hf = "))
+    block.insert(hi + 1, f"s = {fmt(r['ring'])}")
+    ui = next(i for i, l in enumerate(block) if l.startswith("unc_hf = "))
+    block.insert(ui + 1, f"unc_s = {UNC_S}")
+    si = next(i for i, l in enumerate(block) if l.startswith("source = "))
+    text = (f"s derived: TRC ideal-gas S298 of {r['pname']} (CAS {r['cas']}; {r['s_parent']:.2f} "
+            f"J/(mol K) from the TRC coefficients and entropy constant J via the chemicals package "
+            f"(version {chemicals.__version__}), table TRC_gas_data, function "
+            f"TRCCp_integral_over_T) minus ringheat's group S sum ({' + '.join(r['labels'])}) and "
+            f"R ln(n/sigma) with the tool's flat-graph sigma {r['sigma']} and {r['optical']} "
+            f"optical isomer(s) (tools/derive_ring_cp.py); unc_s is a judgement of this file's "
+            f"author")
+    block[si] = block[si][:-1] + "; " + text + '"'
+    if not has_derived:
+        block.insert(si + 1, f's_derived_from = "{r["pname"]}, {r["cas"]}"')
+    lines[start:end] = block
+    path.write_text("\n".join(lines))
 
 
 def source_text(r):
@@ -164,12 +282,9 @@ def source_text(r):
          f"group Cp sum ({' + '.join(r['labels'])}; per-term cp_j of `ringheat estimate --format json`)"
          f" at 300-1500 K (tools/derive_ring_cp.py)")
     if r["extrapolated"]:
-        errors = backtest()
         s += (f"; the correlation ends at {r['tmax']:g} K, so the ring correction at 1500 K was "
-              f"extrapolated linearly from its 800 and 1000 K values (on {len(errors)} ring entries "
-              f"whose parents' correlations reach 1500 K the same extrapolation was off by "
-              f"{min(errors):+.2f} to {max(errors):+.2f} cal/(mol K)), hence unc_cp {r['unc']} "
-              f"instead of {UNC_IN_RANGE}")
+              f"extrapolated linearly from its 800 and 1000 K values {backtest_text(r['unc'])} "
+              f"{UNC_IN_RANGE}")
     s += f"; unc_cp is a judgement of this file's author"
     return s
 
@@ -204,6 +319,24 @@ def write(path, name, r, has_derived):
 
 def main():
     do_write = "--write" in sys.argv[1:]
+    if do_write:
+        backtest()
+        for fname in FILES:
+            refresh_extrapolated(ROOT / "group-tables" / fname)
+    for fname in FILES:
+        path = ROOT / "group-tables" / fname
+        data = tomllib.loads(path.read_text())
+        for e in data.get("ring", []):
+            if "s" in e:
+                continue
+            r, why = derive_entropy(e)
+            if r is None:
+                print(f"{fname}: {e['name']}: no s: {why}")
+                continue
+            print(f"{fname}: {e['name']}: s {r['ring']:.2f} cal/(mol K) from {r['pname']} "
+                  f"{r['cas']} (TRC S298 {r['s_parent']:.2f} J/(mol K), sigma {r['sigma']})")
+            if do_write:
+                write_entropy(path, e["name"], r, "derived_from" in e)
     for fname in FILES:
         path = ROOT / "group-tables" / fname
         data = tomllib.loads(path.read_text())

@@ -3,8 +3,10 @@
 
 Sources (nothing is typed in by hand):
   * `chemicals` (PyPI): its PubChem identifier table, the CRC Handbook standard-state table
-    (`chemicals.heat_capacity.CRC_standard_data`) and the Active Thermochemical Tables 1.112 gas
-    file shipped with it (`Reactions/ATcT 1.112 (g).tsv`).
+    (`chemicals.heat_capacity.CRC_standard_data`), the Active Thermochemical Tables 1.112 gas
+    file shipped with it (`Reactions/ATcT 1.112 (g).tsv`), the TRC ideal-gas heat-capacity
+    correlations (`chemicals.heat_capacity.TRC_gas_data`), and its WebBook and Yaws gas-phase
+    heat-of-formation columns (cross-checks only).
   * `rdkit` (PyPI): parsing, formulas, hydrogen counts, rings, aromaticity, random SMILES.
 
 Every output is a TSV file: a block of `#` lines (source package and version, table used, date,
@@ -16,7 +18,8 @@ Usage (from the repository root):
     python3 tools/make_reference.py all            # every file
     python3 tools/make_reference.py structures     # tests/reference/smiles_structures.tsv
     python3 tools/make_reference.py spellings      # tests/reference/canonical_spellings.tsv
-    python3 tools/make_reference.py thermo         # tests/reference/thermo_reference.tsv
+    python3 tools/make_reference.py thermo         # tests/reference/thermo_reference.tsv and
+                                                   # tests/reference/trc_heat_capacity.tsv
     python3 tools/make_reference.py atct           # tests/reference/atct_small_species.tsv
 """
 
@@ -839,8 +842,9 @@ CP_TEMPERATURES_K = (300, 400, 500, 600, 800, 1000, 1500)
 
 
 def make_trc_heat_capacity(thermo_rows):
-    """Ideal-gas Cp(T) from the TRC correlation for the species of thermo_reference.tsv whose
-    correlation covers every table temperature (used to derive Cp of derived table entries)."""
+    """Ideal-gas S298 and Cp(T) from the TRC correlation for the species of thermo_reference.tsv
+    whose correlation reaches down to 298.15 K (Cp only at table temperatures inside its range);
+    used to give derived table entries an entropy and a heat capacity."""
     import chemicals.heat_capacity as hc
 
     rows = []
@@ -852,24 +856,29 @@ def make_trc_heat_capacity(thermo_rows):
         if getattr(row, "ndim", 1) > 1:
             row = row.iloc[0]
         tmin, tmax = float(row["Tmin"]), float(row["Tmax"])
-        if not (tmin <= CP_TEMPERATURES_K[0] and CP_TEMPERATURES_K[-1] <= tmax):
+        if tmin > 298.15:
             continue
         coeffs = [float(row[f"a{i}"]) for i in range(8)]
         out = {"cas": cas, "name": r["name"], "tmin_k": fmt(tmin, 0), "tmax_k": fmt(tmax, 0)}
+        out["s298_j"] = fmt(hc.TRCCp_integral_over_T(298.15, *coeffs, J=float(row["J"])), 3)
         for t in CP_TEMPERATURES_K:
-            out[f"cp{t}_j"] = fmt(hc.TRCCp(t, *coeffs), 3)
+            out[f"cp{t}_j"] = fmt(hc.TRCCp(t, *coeffs), 3) if tmin <= t <= tmax else None
         rows.append(out)
     header = [
-        "# ringheat reference: ideal-gas heat capacities Cp(T) in J/(mol K) at ringheat's table",
-        "#   temperatures, for the species of thermo_reference.tsv whose TRC correlation covers",
-        "#   300-1500 K.",
+        "# ringheat reference: ideal-gas S298 (J/(mol K)) and Cp(T) in J/(mol K) at ringheat's table",
+        "#   temperatures, for the species of thermo_reference.tsv whose TRC correlation starts at",
+        "#   or below 298 K; a Cp cell is empty where the temperature is outside the correlation.",
         "# source: chemicals package, table chemicals.heat_capacity.TRC_gas_data (TRC ideal-gas",
-        "#   heat-capacity coefficients), evaluated with chemicals.heat_capacity.TRCCp.",
+        "#   heat-capacity coefficients and entropy constant J), evaluated with",
+        "#   chemicals.heat_capacity.TRCCp and TRCCp_integral_over_T (S298 = the latter at 298.15 K",
+        "#   with J; it reproduces CRC S298 of oxirane, THF and thiophene within 0.5 J/(mol K)).",
         *versions_header(),
         "# columns: cas; name (as in thermo_reference.tsv); tmin_k, tmax_k (range of the",
-        "#   correlation); cp300_j ... cp1500_j.",
+        "#   correlation); s298_j; cp300_j ... cp1500_j.",
     ]
-    columns = ["cas", "name", "tmin_k", "tmax_k"] + [f"cp{t}_j" for t in CP_TEMPERATURES_K]
+    columns = ["cas", "name", "tmin_k", "tmax_k", "s298_j"] + [
+        f"cp{t}_j" for t in CP_TEMPERATURES_K
+    ]
     write_tsv("trc_heat_capacity.tsv", header, columns, rows)
 
 

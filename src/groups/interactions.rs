@@ -7,9 +7,11 @@
 //! - `gauche-(O)`: the same count for every acyclic single bond between an sp3 carbon and an
 //!   ether oxygen (bonded to two sp3 carbons), the oxygen's other carbon being its one
 //!   substituent: 1 for an isopropyl, 2 for a tert-butyl on the oxygen (counted as Benson counts
-//!   alkane gauche pairs, with the oxygen as a chain atom; common practice).
-//! - `vicinal-(X)2`: for every single bond between two sp3 carbons (ring bonds included), each
-//!   pair of like halogens X, one on each carbon (hexachloroethane: 9 `vicinal-(Cl)2`): halogen
+//!   alkane gauche pairs, with the oxygen as a chain atom; common practice). Not counted on a
+//!   carbon that bears a second oxygen (acetals, ketals): there the anomeric effect favours the
+//!   gauche arrangement.
+//! - `vicinal-(X)2`: for every acyclic single bond between two sp3 carbons, each pair of like
+//!   halogens X, one on each carbon (hexachloroethane: 9 `vicinal-(Cl)2`): halogen
 //!   crowding that the one-carbon halogen groups cannot see (our counting rule). Mixed pairs are
 //!   not counted: the reference data hold too few compounds to give them values.
 //! - `1,5-interaction`: for every pair of sp3 carbons A, B bonded to one sp3 carbon M by acyclic
@@ -140,7 +142,11 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
         };
         let bond = &mol.graph[e];
         let in_ring = p.rings.is_ring_bond(e);
-        if bond.order == BondOrder::Single && is_sp3_carbon(types, a) && is_sp3_carbon(types, b) {
+        if bond.order == BondOrder::Single
+            && !in_ring
+            && is_sp3_carbon(types, a)
+            && is_sp3_carbon(types, b)
+        {
             count_vicinal_halogens(p, types, a, b, &mut out);
         }
         match bond.order {
@@ -159,8 +165,13 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
                 } else {
                     (b, a)
                 };
-                let n = carbon_substituents_except(p, c, o) as u32;
-                out.add("gauche-(O)", None, n.saturating_sub(1));
+                let acetal = mol
+                    .neighbours(c)
+                    .any(|(n, _)| n != o && mol.atom(n).element == Element::O);
+                if !acetal {
+                    let n = carbon_substituents_except(p, c, o) as u32;
+                    out.add("gauche-(O)", None, n.saturating_sub(1));
+                }
             }
             _ if types.centre(a) == Some("Cb")
                 && types.centre(b) == Some("Cb")
@@ -436,6 +447,7 @@ mod tests {
         assert_eq!(count("CC(C)(C)O", "gauche-(O)"), 0);
         assert_eq!(count("CC(=O)OC(C)(C)C", "gauche-(O)"), 0);
         assert_eq!(count("CC1(C)CCCO1", "gauche-(O)"), 0);
+        assert_eq!(count("CCOC(C)(C)OCC", "gauche-(O)"), 0);
     }
 
     #[test]
@@ -446,7 +458,7 @@ mod tests {
         assert_eq!(count("ClCCCl", "vicinal-(Cl)2"), 1);
         assert_eq!(count("ClCC(C)Cl", "vicinal-(Cl)2"), 1);
         assert_eq!(count("ClC(Cl)C", "vicinal-(Cl)2"), 0);
-        assert_eq!(count("FC1CCCCC1F", "vicinal-(F)2"), 1);
+        assert_eq!(count("FC1CCCCC1F", "vicinal-(F)2"), 0);
     }
 
     #[test]

@@ -127,6 +127,9 @@ pub struct GroupEntry {
     pub same_as: Option<GroupKey>,
     /// The measured compound the value was derived from (`name, CAS`), if any.
     pub derived_from: Option<String>,
+    /// The measured compound only the entropy was derived from (`name, CAS`), if any; it stays
+    /// an independent check of `hf` and `cp`.
+    pub s_derived_from: Option<String>,
     /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
     /// stays an independent check of `hf` and `s`.
     pub cp_derived_from: Option<String>,
@@ -147,6 +150,9 @@ pub struct CorrectionEntry {
     pub source: String,
     /// The measured compound the value was derived from, if any.
     pub derived_from: Option<String>,
+    /// The measured compound only the entropy was derived from (`name, CAS`), if any; it stays
+    /// an independent check of `hf` and `cp`.
+    pub s_derived_from: Option<String>,
     /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
     /// stays an independent check of `hf` and `s`.
     pub cp_derived_from: Option<String>,
@@ -167,6 +173,9 @@ pub struct RingEntry {
     pub source: String,
     /// The measured compound the value was derived from, if any.
     pub derived_from: Option<String>,
+    /// The measured compound only the entropy was derived from (`name, CAS`), if any; it stays
+    /// an independent check of `hf` and `cp`.
+    pub s_derived_from: Option<String>,
     /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
     /// stays an independent check of `hf` and `s`.
     pub cp_derived_from: Option<String>,

@@ -58,6 +58,7 @@ struct RawEntry {
     source: Option<String>,
     same_as: Option<String>,
     derived_from: Option<String>,
+    s_derived_from: Option<String>,
     cp_derived_from: Option<String>,
     /// Ring entries: the symmetry number of the parent that the entropy value assumed.
     parent_symmetry: Option<u64>,
@@ -289,6 +290,7 @@ impl Ctx<'_> {
             source,
             same_as,
             derived_from: entry.derived_from,
+            s_derived_from: entry.s_derived_from,
             cp_derived_from: entry.cp_derived_from,
             origin: self.origin(),
         })
@@ -311,6 +313,7 @@ impl Ctx<'_> {
             counting,
             source,
             derived_from: entry.derived_from,
+            s_derived_from: entry.s_derived_from,
             cp_derived_from: entry.cp_derived_from,
             origin: self.origin(),
         })
@@ -335,6 +338,7 @@ impl Ctx<'_> {
             values: self.values(&entry)?,
             source,
             derived_from: entry.derived_from,
+            s_derived_from: entry.s_derived_from,
             cp_derived_from: entry.cp_derived_from,
             parent_symmetry: entry.parent_symmetry,
             origin: self.origin(),

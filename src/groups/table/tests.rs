@@ -317,7 +317,7 @@ fn bundled_tables_load() {
 #[test]
 fn provenance_fields_are_kept_apart() {
     let text = format!(
-        "{META_KCAL}{}derived_from = \"test compound, 1-23-4\"\ncp_derived_from = \"other compound, 5-67-8\"\n",
+        "{META_KCAL}{}derived_from = \"test compound, 1-23-4\"\ns_derived_from = \"a compound, 9-10-1\"\ncp_derived_from = \"other compound, 5-67-8\"\n",
         METHYL
     );
     let (_dir, result) = load_one(&text);
@@ -326,6 +326,7 @@ fn provenance_fields_are_kept_apart() {
         .group(&GroupKey::parse("C-(C)(H)3").unwrap())
         .unwrap();
     assert_eq!(entry.derived_from.as_deref(), Some("test compound, 1-23-4"));
+    assert_eq!(entry.s_derived_from.as_deref(), Some("a compound, 9-10-1"));
     assert_eq!(
         entry.cp_derived_from.as_deref(),
         Some("other compound, 5-67-8")
