@@ -32,6 +32,7 @@ use std::fmt::Write as _;
 use std::path::{Path, PathBuf};
 
 use ringheat::groups::assign::assign_groups;
+use ringheat::groups::interactions::count_interactions;
 use ringheat::groups::ring_match::correction_skeletons;
 use ringheat::groups::table::{GroupTables, CP_TEMPERATURES_K};
 use ringheat::molecule::formula::Formula;
@@ -159,10 +160,11 @@ fn priority(r: &Reference) -> Priority {
     )
 }
 
-/// Whether the compound lacks exactly one ring system and, besides it, only groups whose atoms all
-/// lie in that ring system, with a generic stand-in for each.
 /// Group keys that some reference compound has on an atom outside every ring: such a group is
-/// not a ring's own and must not be absorbed into a ring correction.
+/// not a ring's own and must not be absorbed into a ring correction. (Ring-only within the
+/// reference set, not by structure: a group absorbed this way, such as `S-(Cb)2`, can occur in
+/// chains too; the ring entry's source says which stand-ins it holds, and a table that later
+/// gives the group a value makes the regenerated ring entry an ordinary derivation.)
 fn groups_outside_rings(refs: &[Reference]) -> HashSet<String> {
     let mut out = HashSet::new();
     for r in refs {
@@ -186,6 +188,9 @@ fn groups_outside_rings(refs: &[Reference]) -> HashSet<String> {
     out
 }
 
+/// Whether the compound lacks exactly one ring system and, besides it, only groups whose atoms
+/// all lie in that ring system, that occur nowhere else in the reference set and that have a
+/// generic stand-in, with every counted correction in the tables.
 fn lacks_only_ring_groups(
     engine: &GroupAdditivity,
     p: &PerceivedMolecule,
@@ -210,13 +215,18 @@ fn lacks_only_ring_groups(
         .iter()
         .filter(|g| missing.iter().any(|m| m.key == g.key))
         .all(|g| skeleton.atoms.contains(&g.atom));
+    // A correction the tables lack (dropped, or taken from its fallback) would be absorbed too.
+    let interactions = count_interactions(p, &assignment.types);
+    if interactions
+        .counts
+        .iter()
+        .any(|c| engine.tables.correction(&c.name).is_none())
+    {
+        return false;
+    }
     let Ok(est) = engine.estimate(p, &EstimateOptions::default()) else {
         return false;
     };
-    // Corrections dropped or stood in for would be absorbed too.
-    if est.flags.iter().any(|f| f.contains("correction")) {
-        return false;
-    }
     let ring_fallback = est.terms.iter().any(|t| {
         t.kind == ringheat::thermo::estimate::TermKind::Ring
             && t.note.as_deref().is_some_and(|n| n.starts_with("fallback"))
@@ -276,6 +286,8 @@ fn main() {
     // Groups whose generic stand-ins a joint ring derivation absorbed: never derived afterwards,
     // or the ring value would count them twice.
     let mut absorbed: HashSet<String> = HashSet::new();
+    // Candidates of the latest round that could not be derived (reported at the end).
+    let mut not_derived: Vec<String> = Vec::new();
     // Set after a round that derived nothing: the next round tries the joint ring derivations.
     let mut stalled = false;
     for round in 1..=ROUNDS {
@@ -389,6 +401,7 @@ fn main() {
         let mut derived_rings = String::new();
         let mut derived_corrections = String::new();
         let mut count = 0;
+        not_derived.clear();
         // `own`: the label of the placeholder term this compound derives; an estimate that also
         // leans on another placeholder (an entry derived in the same round) would absorb that
         // entry's effect as well, so it waits for a later round.
@@ -434,7 +447,8 @@ fn main() {
                     })
                     .collect();
                 format!(
-                    ", with the generic stand-ins for {} in place",
+                    ", with the generic stand-ins for {} in place (valid with those stand-ins: \
+                     if a table gives these groups values, regenerate)",
                     names.join(", ")
                 )
             } else {
@@ -515,6 +529,8 @@ fn main() {
             ) {
                 used.insert(r.cas.clone());
                 count += 1;
+            } else {
+                not_derived.push(format!("group {key} ({})", r.name));
             }
         }
         for (name, (_, i, n)) in &correction_candidates {
@@ -543,6 +559,8 @@ fn main() {
             ) {
                 used.insert(r.cas.clone());
                 count += 1;
+            } else {
+                not_derived.push(format!("correction {name} ({})", r.name));
             }
         }
         for (n, i) in ring_chosen.iter().enumerate() {
@@ -571,6 +589,8 @@ fn main() {
                 }
                 used.insert(r.cas.clone());
                 count += 1;
+            } else {
+                not_derived.push(format!("ring system of {}", r.name));
             }
         }
         let _ = std::fs::remove_file(work.join("zz-placeholder.toml"));
@@ -602,6 +622,12 @@ fn main() {
             break;
         }
         stalled = count == 0;
+    }
+    if !not_derived.is_empty() {
+        println!(
+            "left underived (their best compound needs something no compound supplies): {}",
+            not_derived.join("; ")
+        );
     }
     let header = |what: &str| {
         format!(

@@ -125,7 +125,7 @@ fn validate() -> Figures {
 /// Runs the comparison, prints the report and returns the figures.
 fn run_validation() -> Figures {
     let engine = GroupAdditivity::bundled().expect("bundled tables load");
-    // CAS numbers that table values were derived from (all properties, or Cp only).
+    // CAS numbers that table values were derived from (all properties, or S or Cp only).
     let t = &engine.tables;
     let provenance = t
         .groups()

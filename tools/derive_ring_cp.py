@@ -271,8 +271,23 @@ def write_entropy(path, name, r, has_derived):
     block[si] = block[si][:-1] + "; " + text + '"'
     if not has_derived:
         block.insert(si + 1, f's_derived_from = "{r["pname"]}, {r["cas"]}"')
+    ni = next((i for i, l in enumerate(block) if l.startswith("note = ")), None)
+    if ni is not None:
+        block[ni] = entropy_note(block[ni])
     lines[start:end] = block
     path.write_text("\n".join(lines))
+
+
+def entropy_note(line):
+    """A ring entry's note once it has a derived s: no longer "hf and cp only", and the symmetry
+    remark says which convention s follows; stand-in cautions cover s too."""
+    line = re.sub(r"sigma = \d+ \(real point-group symmetry number of the parent, Benson's "
+                  r"convention\)\.", "s follows the tool's flat-graph symmetry convention "
+                  r"(derived; no parent_symmetry).", line)
+    line = line.replace(" hf and cp only.", "").replace("hf and cp only. ", "")
+    line = line.replace("shift this ring value by", "shift this ring's hf by")
+    line = re.sub(r"(shift this ring's hf by [^;)]*\))", r"\1 and rederive s", line)
+    return line
 
 
 def source_text(r):
