@@ -54,29 +54,39 @@ struct TrcData {
 }
 
 /// TRC data by CAS number.
-fn read_trc(path: &Path) -> HashMap<String, TrcData> {
+/// A reference TSV file (`#` comment lines, one header row, tab-separated rows): the column
+/// index lookup and the data rows. Panics with the path or column name (a maintainer tool
+/// reading the repository's own files).
+fn read_tsv(path: &Path) -> (impl Fn(&str) -> usize, Vec<Vec<String>>) {
     let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
     let mut lines = text
         .lines()
         .filter(|l| !l.starts_with('#') && !l.trim().is_empty());
-    let header: Vec<&str> = lines
+    let header: Vec<String> = lines
         .next()
-        .map(|h| h.split('\t').collect())
+        .map(|h| h.split('\t').map(str::to_string).collect())
         .unwrap_or_default();
-    let col = |n: &str| {
+    let rows = lines
+        .map(|l| l.split('\t').map(str::to_string).collect())
+        .collect();
+    let col = move |n: &str| {
         header
             .iter()
-            .position(|h| *h == n)
+            .position(|h| h == n)
             .unwrap_or_else(|| panic!("column {n}"))
     };
+    (col, rows)
+}
+
+fn read_trc(path: &Path) -> HashMap<String, TrcData> {
+    let (col, rows) = read_tsv(path);
     let (c_cas, c_s) = (col("cas"), col("s298_j"));
     let c_cp: Vec<usize> = CP_TEMPERATURES_K
         .iter()
         .map(|t| col(&format!("cp{t}_j")))
         .collect();
-    lines
-        .map(|l| {
-            let c: Vec<&str> = l.split('\t').collect();
+    rows.iter()
+        .map(|c| {
             let number = |i: usize| c.get(i).and_then(|v| v.parse::<f64>().ok());
             let mut cp = [0.0; 7];
             let mut complete = true;
@@ -90,7 +100,7 @@ fn read_trc(path: &Path) -> HashMap<String, TrcData> {
                 s298_j: number(c_s),
                 cp_j: complete.then_some(cp),
             };
-            (c[c_cas].to_string(), data)
+            (c[c_cas].clone(), data)
         })
         .collect()
 }
@@ -107,20 +117,7 @@ struct Reference {
 }
 
 fn read_reference(path: &Path) -> Vec<Reference> {
-    let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
-    let mut lines = text
-        .lines()
-        .filter(|l| !l.starts_with('#') && !l.trim().is_empty());
-    let header: Vec<&str> = lines
-        .next()
-        .map(|h| h.split('\t').collect())
-        .unwrap_or_default();
-    let col = |n: &str| {
-        header
-            .iter()
-            .position(|h| *h == n)
-            .unwrap_or_else(|| panic!("column {n}"))
-    };
+    let (col, rows) = read_tsv(path);
     let (c_cas, c_name, c_smiles, c_hf, c_unc, c_src, c_s) = (
         col("cas"),
         col("name"),
@@ -130,18 +127,17 @@ fn read_reference(path: &Path) -> Vec<Reference> {
         col("hf_source"),
         col("s298_j"),
     );
-    lines
-        .filter_map(|l| {
-            let c: Vec<&str> = l.split('\t').collect();
+    rows.iter()
+        .filter_map(|c| {
             let hf = c[c_hf].parse().ok()?;
-            let mol = ringheat::molecule::parse_smiles(c[c_smiles]).ok()?;
+            let mol = ringheat::molecule::parse_smiles(&c[c_smiles]).ok()?;
             Some(Reference {
-                cas: c[c_cas].to_string(),
-                name: c[c_name].to_string(),
-                smiles: c[c_smiles].to_string(),
+                cas: c[c_cas].clone(),
+                name: c[c_name].clone(),
+                smiles: c[c_smiles].clone(),
                 hf,
                 hf_unc: c[c_unc].parse().ok(),
-                hf_source: c[c_src].to_string(),
+                hf_source: c[c_src].clone(),
                 s: c[c_s].parse().ok(),
                 heavy_atoms: Formula::of(&mol).heavy_atoms(),
             })

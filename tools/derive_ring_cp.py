@@ -104,8 +104,8 @@ def estimate(smiles):
     return json.loads(out)[0]
 
 
-def derive(entry):
-    """Return (result dict) or (None, reason)."""
+def parent_trc_row(entry):
+    """((parent name, CAS, TRC row), None) for a ring entry, or (None, reason)."""
     name = entry["name"]
     if "derived_from" in entry:
         pname, cas = [p.strip() for p in entry["derived_from"].rsplit(",", 1)]
@@ -115,7 +115,16 @@ def derive(entry):
         return None, "no parent named"
     if cas not in TRC_gas_data.index:
         return None, f"no TRC row for {pname} ({cas})"
-    row = TRC_gas_data.loc[cas]
+    return (pname, cas, TRC_gas_data.loc[cas]), None
+
+
+def derive(entry):
+    """Return (result dict) or (None, reason)."""
+    name = entry["name"]
+    found, why = parent_trc_row(entry)
+    if found is None:
+        return None, why
+    pname, cas, row = found
     tmin, tmax = float(row.Tmin), float(row.Tmax)
     inside = [t for t in TEMPS if tmin <= t <= tmax]
     if inside[:6] != TEMPS[:6]:
@@ -210,15 +219,10 @@ UNC_S = 1.0  # cal/(mol K), judgement of this file's author
 def derive_entropy(entry):
     """(result dict, None) with the ring entropy from the parent's TRC S298, or (None, reason)."""
     name = entry["name"]
-    if "derived_from" in entry:
-        pname, cas = [p.strip() for p in entry["derived_from"].rsplit(",", 1)]
-    elif name in PARENTS:
-        pname, cas = PARENTS[name]
-    else:
-        return None, "no parent named"
-    if cas not in TRC_gas_data.index:
-        return None, f"no TRC row for {pname} ({cas})"
-    row = TRC_gas_data.loc[cas]
+    found, why = parent_trc_row(entry)
+    if found is None:
+        return None, why
+    pname, cas, row = found
     if float(row.Tmin) > 298.15:
         return None, f"TRC range starts at {float(row.Tmin):g} K, above 298.15 K"
     coeffs = [float(row[f"a{i}"]) for i in range(8)]
