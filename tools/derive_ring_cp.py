@@ -190,6 +190,25 @@ def backtest_text(unc):
             f"hence unc_cp {unc} instead of")
 
 
+def entry_span(lines, name):
+    """(first, past-the-end) line index of the [[ring]] entry named `name` (from its name line
+    to the next blank line or table header)."""
+    start = next(i for i, l in enumerate(lines) if l == f'name = "{name}"')
+    end = start + 1
+    while end < len(lines) and lines[end].strip() and not lines[end].startswith("[["):
+        end += 1
+    return start, end
+
+
+def entries_lacking(field):
+    """(file name, path, entry) for every ring entry of FILES without `field`."""
+    for fname in FILES:
+        path = ROOT / "group-tables" / fname
+        for e in tomllib.loads(path.read_text()).get("ring", []):
+            if field not in e:
+                yield fname, path, e
+
+
 def refresh_extrapolated(path):
     """Brings unc_cp and the backtest figures of entries with an extrapolated 1500 K cp up to
     date (the rule or the backtest set may have changed since they were written)."""
@@ -200,10 +219,7 @@ def refresh_extrapolated(path):
         if "cp" not in e or not BACKTEST_TEXT.search(e["source"]):
             continue
         unc = extrapolated_unc(e["cp"])
-        start = next(i for i, l in enumerate(lines) if l == f'name = "{e["name"]}"')
-        end = start + 1
-        while end < len(lines) and lines[end].strip() and not lines[end].startswith("[["):
-            end += 1
+        start, end = entry_span(lines, e["name"])
         for i in range(start, end):
             if lines[i].startswith("unc_cp = "):
                 lines[i] = f"unc_cp = {unc}"
@@ -255,10 +271,7 @@ def write_entropy(path, name, r, has_derived):
     """Insert s, unc_s, s_derived_from and the source text; the value follows the tool's
     flat-graph symmetry convention, so a `parent_symmetry` line is removed."""
     lines = path.read_text().split("\n")
-    start = next(i for i, l in enumerate(lines) if l == f'name = "{name}"')
-    end = start + 1
-    while end < len(lines) and lines[end].strip() and not lines[end].startswith("[["):
-        end += 1
+    start, end = entry_span(lines, name)
     block = [l for l in lines[start:end] if not l.startswith("parent_symmetry = ")]
     hi = next(i for i, l in enumerate(block) if l.startswith("hf = "))
     block.insert(hi + 1, f"s = {fmt(r['ring'])}")
@@ -310,10 +323,7 @@ def source_text(r):
 
 def write(path, name, r, has_derived):
     lines = path.read_text().split("\n")
-    start = next(i for i, l in enumerate(lines) if l == f'name = "{name}"')
-    end = start + 1
-    while end < len(lines) and lines[end].strip() and not lines[end].startswith("[["):
-        end += 1
+    start, end = entry_span(lines, name)
     block = lines[start:end]
     cp_line = "cp = [" + ", ".join(fmt(v) for v in r["ring"]) + "]"
     anchor = max(i for i, l in enumerate(block) if l.startswith(("hf = ", "s = ")))
@@ -342,38 +352,29 @@ def main():
         backtest()
         for fname in FILES:
             refresh_extrapolated(ROOT / "group-tables" / fname)
-    for fname in FILES:
-        path = ROOT / "group-tables" / fname
-        data = tomllib.loads(path.read_text())
-        for e in data.get("ring", []):
-            if "s" in e:
-                continue
-            r, why = derive_entropy(e)
-            if r is None:
-                print(f"{fname}: {e['name']}: no s: {why}")
-                continue
-            print(f"{fname}: {e['name']}: s {r['ring']:.2f} cal/(mol K) from {r['pname']} "
-                  f"{r['cas']} (TRC S298 {r['s_parent']:.2f} J/(mol K), sigma {r['sigma']})")
-            if do_write:
-                write_entropy(path, e["name"], r, "derived_from" in e)
-    for fname in FILES:
-        path = ROOT / "group-tables" / fname
-        data = tomllib.loads(path.read_text())
-        for e in data.get("ring", []):
-            if "cp" in e:
-                continue
-            r, why = derive(e)
-            if r is None:
-                print(f"{fname}: {e['name']}: skipped: {why}")
-                continue
-            extra = f" (other term kinds: {r['other_kinds']})" if r["other_kinds"] else ""
-            print(f"{fname}: {e['name']}: parent {r['pname']} {r['cas']} TRC {r['tmin']:g}-"
-                  f"{r['tmax']:g} K{' EXTRAPOLATED 1500' if r['extrapolated'] else ''}{extra}")
-            print("   parent  " + " ".join(f"{v:7.2f}" for v in r["parent_cal"]))
-            print("   groups  " + " ".join(f"{v:7.2f}" for v in r["groups_cal"]))
-            print("   ring    " + " ".join(f"{v:7.2f}" for v in r["ring"]))
-            if do_write:
-                write(path, e["name"], r, "derived_from" in e)
+    # Each loop re-reads the files: the entropy pass may have written them.
+    for fname, path, e in entries_lacking("s"):
+        r, why = derive_entropy(e)
+        if r is None:
+            print(f"{fname}: {e['name']}: no s: {why}")
+            continue
+        print(f"{fname}: {e['name']}: s {r['ring']:.2f} cal/(mol K) from {r['pname']} "
+              f"{r['cas']} (TRC S298 {r['s_parent']:.2f} J/(mol K), sigma {r['sigma']})")
+        if do_write:
+            write_entropy(path, e["name"], r, "derived_from" in e)
+    for fname, path, e in entries_lacking("cp"):
+        r, why = derive(e)
+        if r is None:
+            print(f"{fname}: {e['name']}: skipped: {why}")
+            continue
+        extra = f" (other term kinds: {r['other_kinds']})" if r["other_kinds"] else ""
+        print(f"{fname}: {e['name']}: parent {r['pname']} {r['cas']} TRC {r['tmin']:g}-"
+              f"{r['tmax']:g} K{' EXTRAPOLATED 1500' if r['extrapolated'] else ''}{extra}")
+        print("   parent  " + " ".join(f"{v:7.2f}" for v in r["parent_cal"]))
+        print("   groups  " + " ".join(f"{v:7.2f}" for v in r["groups_cal"]))
+        print("   ring    " + " ".join(f"{v:7.2f}" for v in r["ring"]))
+        if do_write:
+            write(path, e["name"], r, "derived_from" in e)
 
 
 if __name__ == "__main__":
