@@ -223,10 +223,7 @@ fn lacks_only_ring_groups(
     let Ok(est) = engine.estimate(p, &EstimateOptions::default()) else {
         return false;
     };
-    let ring_fallback = est.terms.iter().any(|t| {
-        t.kind == ringheat::thermo::estimate::TermKind::Ring
-            && t.note.as_deref().is_some_and(|n| n.starts_with("fallback"))
-    });
+    let ring_fallback = est.terms.iter().any(|t| t.is_ring_stand_in());
     on_ring && ring_fallback
 }
 
@@ -435,12 +432,7 @@ fn main() {
                 let names: Vec<String> = est
                     .terms
                     .iter()
-                    .filter_map(|t| {
-                        t.note
-                            .as_ref()
-                            .filter(|n| n.starts_with("stand-in"))
-                            .map(|n| format!("{} ({n})", t.label))
-                    })
+                    .filter_map(|t| t.stand_in().map(|n| format!("{} ({n})", t.label)))
                     .collect();
                 format!(
                     ", with the generic stand-ins for {} in place (valid with those stand-ins: \
@@ -450,10 +442,14 @@ fn main() {
             } else {
                 String::new()
             };
+            let Some(est_hf) = est.hf298_kj else {
+                println!("  {} ({}) not derivable: no Hf298 estimate", r.name, r.cas);
+                return false;
+            };
             let k = n as f64;
             let meas_unc = r.hf_unc.unwrap_or(CRC_HF_UNC_KJ);
-            let hf = (r.hf - est.hf298_kj.value) / k;
-            let unc_hf = meas_unc.hypot(est.hf298_kj.uncertainty) / k;
+            let hf = (r.hf - est_hf.value) / k;
+            let unc_hf = meas_unc.hypot(est_hf.uncertainty) / k;
             let _ = write!(out, "\n{head}\nhf = {hf:.2}\nunc_hf = {unc_hf:.2}\n");
             let mut what = format!(
                 "Hf298 {:.2} kJ/mol ({}, thermo_reference.tsv)",

@@ -13,7 +13,8 @@
 //! let cyclopropane = PerceivedMolecule::from_smiles("C1CC1").unwrap();
 //! let estimate = engine.estimate(&cyclopropane, &EstimateOptions::default()).unwrap();
 //! // Measured: 53.3 kJ/mol (CRC Handbook); group additivity with the ring correction is close.
-//! assert!((estimate.hf298_kj.value - 53.3).abs() < 5.0);
+//! let hf298 = estimate.hf298_kj.expect("every term gives an Hf298");
+//! assert!((hf298.value - 53.3).abs() < 5.0);
 //! ```
 
 pub mod computed;
@@ -24,3 +25,4 @@ pub mod reactions;
 pub mod report;
 pub mod strain;
 pub mod thermo;
+pub mod units;

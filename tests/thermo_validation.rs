@@ -187,6 +187,10 @@ fn run_validation() -> Figures {
         };
         let measured = |c: usize| row.get(c).parse::<f64>().ok();
         let Some(hf) = measured(c_hf) else { continue };
+        let Some(est_hf) = est.hf298_kj else {
+            failures.push((name, "no Hf298 estimate".to_string()));
+            continue;
+        };
         let s_err = measured(c_s)
             .filter(|_| !s_derived.contains(&cas))
             .zip(est.s298_j)
@@ -201,21 +205,21 @@ fn run_validation() -> Figures {
             class: row.get(c_class).to_string(),
             hetero: row.get(c_het) == "1",
             cho_only: row.get(c_el).chars().all(|c| "CHO".contains(c)),
-            hf_err_kcal: (est.hf298_kj.value - hf) / KJ_PER_KCAL,
+            hf_err_kcal: (est_hf.value - hf) / KJ_PER_KCAL,
             s_err_cal: s_err,
             cp_err_cal: cp_err,
             flagged: !est.flags.is_empty(),
             detail: format!(
                 "{}\t{:.2}\t{:.2}\t{}\t{}",
                 row.get(c_smiles),
-                est.hf298_kj.value,
+                est_hf.value,
                 hf,
                 est.terms
                     .iter()
                     .map(|t| format!("{}x{}", t.count, t.label))
                     .collect::<Vec<_>>()
                     .join(" "),
-                est.flags.join(" | ")
+                ringheat::thermo::flags::joined(&est.flags)
             ),
         });
     }

@@ -15,8 +15,8 @@ use ringheat::reactions::{
 use ringheat::report::computed::{render_csv, render_table, CheckReport};
 use ringheat::report::OutputFormat;
 use ringheat::strain::analysis::FALLBACK_METHOD;
-use ringheat::thermo::quantity::{EnergyUnit, JOULES_PER_CALORIE};
 use ringheat::thermo::{EstimateOptions, GroupAdditivity};
+use ringheat::units::{EnergyUnit, JOULES_PER_CALORIE};
 
 /// Options of the check-computed command.
 #[derive(Debug, Args)]
@@ -65,7 +65,7 @@ pub fn run(args: CheckComputedArgs) -> Result<ExitCode, Box<dyn std::error::Erro
     let estimate = engine
         .estimate(&PerceivedMolecule::new(&mol), &EstimateOptions::default())
         .ok()
-        .map(|e| e.hf298_kj);
+        .and_then(|e| e.hf298_kj);
     let fallback = group_additivity_fallback(&engine);
     let lookup = lookup_with_fallback(&table, &fallback, FALLBACK_METHOD);
     let check = check_computed(&reaction, &energies, &lookup, estimate, &options)?;

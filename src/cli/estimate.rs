@@ -8,7 +8,7 @@ use super::inputs::{InputArgs, TableArgs};
 use ringheat::report::thermo::{estimate_rows, render_csv, render_explain, render_table};
 use ringheat::report::{failed_count, OutputFormat};
 use ringheat::thermo::estimate::EstimateOptions;
-use ringheat::thermo::quantity::EnergyUnit;
+use ringheat::units::EnergyUnit;
 
 /// Options of the estimate command.
 #[derive(Debug, Args)]

@@ -11,8 +11,8 @@ use ringheat::reactions::{group_additivity_fallback, lookup_with_fallback, Refer
 use ringheat::report::reactions::{reaction_rows, render_csv, render_table};
 use ringheat::report::{OutputFormat, Row};
 use ringheat::strain::analysis::FALLBACK_METHOD;
-use ringheat::thermo::quantity::EnergyUnit;
 use ringheat::thermo::GroupAdditivity;
+use ringheat::units::EnergyUnit;
 
 /// Options of the reactions command.
 #[derive(Debug, Args)]

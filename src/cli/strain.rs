@@ -8,8 +8,8 @@ use super::inputs::{InputArgs, TableArgs};
 use ringheat::report::strain::{render_csv, render_table, strain_rows};
 use ringheat::report::{failed_count, OutputFormat};
 use ringheat::strain::StrainData;
-use ringheat::thermo::quantity::{EnergyUnit, JOULES_PER_CALORIE};
 use ringheat::thermo::Quantity;
+use ringheat::units::{EnergyUnit, JOULES_PER_CALORIE};
 
 /// Options of the strain command.
 #[derive(Debug, Args)]

@@ -13,16 +13,13 @@
 //! with `#`. One file uses one unit. Species are matched by canonical SMILES, so any spelling of
 //! a structure will do, but each structure may appear only once. A value `?` (as the template
 //! writes it) means "not filled in yet" and is an error naming the species.
-//! 1 hartree = 2625.4996 kJ/mol (CODATA, as validation.md gives it); 1 kcal = 4.184 kJ.
+//! Conversions to kJ/mol: [`crate::units`] (1 hartree = 2625.4996 kJ/mol, CODATA 2018; 1 kcal = 4.184 kJ).
 
 use std::fmt;
 
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::parse_smiles;
-use crate::thermo::quantity::JOULES_PER_CALORIE;
-
-/// kJ/mol per hartree.
-pub const KJ_PER_HARTREE: f64 = 2625.4996;
+use crate::units::{JOULES_PER_CALORIE, KJ_PER_HARTREE};
 
 /// The unit of the enthalpies in a file.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]

@@ -45,13 +45,35 @@ pub struct InteractionCount {
     pub fallback: Option<&'static str>,
 }
 
+/// An assumption made while counting interactions (shown as a flag of the estimate).
+#[derive(Debug, Clone, PartialEq, Eq, serde::Serialize)]
+pub enum InteractionNote {
+    /// A double bond whose geometry the input does not give was taken as E (trans).
+    DoubleBondGeometryUnknown {
+        /// 1-based numbers of the two double-bond atoms.
+        atoms: [usize; 2],
+    },
+}
+
+impl std::fmt::Display for InteractionNote {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            InteractionNote::DoubleBondGeometryUnknown { atoms: [a, b] } => write!(
+                f,
+                "double bond between atoms {a} and {b} has no geometry in the input: taken \
+                 as E (trans), no cis correction"
+            ),
+        }
+    }
+}
+
 /// All counted interactions and notes about assumptions made.
 #[derive(Debug, Clone, Default)]
 pub struct Interactions {
     /// Non-zero counts.
     pub counts: Vec<InteractionCount>,
     /// Assumptions (unspecified double-bond geometry, ...).
-    pub notes: Vec<String>,
+    pub notes: Vec<InteractionNote>,
 }
 
 impl Interactions {
@@ -322,12 +344,9 @@ fn count_cis(
         Some(i) => i,
         None => {
             if sa.len() == 1 && sb.len() == 1 {
-                out.notes.push(format!(
-                    "double bond between atoms {} and {} has no geometry in the input: taken \
-                     as E (trans), no cis correction",
-                    a.index() + 1,
-                    b.index() + 1
-                ));
+                out.notes.push(InteractionNote::DoubleBondGeometryUnknown {
+                    atoms: [a.index() + 1, b.index() + 1],
+                });
             }
             (0..arrangements.len())
                 .min_by_key(|&i| cost(&arrangements[i]))

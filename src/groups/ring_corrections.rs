@@ -5,7 +5,7 @@ use super::ring_match::{correction_skeletons, skeleton_of_rings, RingSkeleton, S
 use super::table::{GroupTables, RingEntry};
 use crate::molecule::symmetry::symmetry_number;
 use crate::molecule::PerceivedMolecule;
-use crate::thermo::quantity::GAS_CONSTANT;
+use crate::units::GAS_CONSTANT_J_PER_MOL_K;
 
 /// A ring-table entry whose SMILES cannot serve as a ring-correction pattern.
 #[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
@@ -33,8 +33,74 @@ pub struct RingCorrectionIndex {
 pub enum RingMatch {
     /// The whole system is a table entry.
     Exact,
-    /// Not in the tables: the parts stood in; the text says what was used.
-    Fallback(String),
+    /// Not in the tables: the parts stood in.
+    Fallback(RingStandIn),
+}
+
+/// What stood in for a ring system the tables lack.
+#[derive(Debug, Clone, PartialEq, Eq, serde::Serialize)]
+pub struct RingStandIn {
+    /// SSSR ring sizes of the system, ascending.
+    pub ring_sizes: Vec<usize>,
+    /// The whole system's stand-in (one part), or one part per ring.
+    pub parts: Vec<RingStandInPart>,
+}
+
+/// One part of a ring stand-in.
+#[derive(Debug, Clone, PartialEq, Eq, serde::Serialize)]
+pub enum RingStandInPart {
+    /// A ring entry used for the ring.
+    Entry {
+        /// Name of the ring entry.
+        name: String,
+        /// How the ring was matched to it.
+        matched: RingPartMatch,
+    },
+    /// A ring with no entry at all: taken as strain-free.
+    NoEntry {
+        /// Ring-atom count of the ring.
+        ring_atoms: usize,
+    },
+}
+
+/// How a single ring matched a ring entry.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+pub enum RingPartMatch {
+    /// The ring itself is the entry.
+    Itself,
+    /// The ring with every atom taken as carbon.
+    AllCarbon,
+    /// The ring as a saturated carbocycle.
+    SaturatedCarbon,
+}
+
+impl std::fmt::Display for RingStandInPart {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            RingStandInPart::Entry { name, matched } => match matched {
+                RingPartMatch::Itself => write!(f, "{name}"),
+                RingPartMatch::AllCarbon => write!(f, "{name} (all-carbon stand-in)"),
+                RingPartMatch::SaturatedCarbon => {
+                    write!(f, "{name} (saturated carbocycle stand-in)")
+                }
+            },
+            RingStandInPart::NoEntry { ring_atoms } => {
+                write!(f, "{ring_atoms}-ring with no entry (taken as strain-free)")
+            }
+        }
+    }
+}
+
+impl std::fmt::Display for RingStandIn {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        let parts: Vec<String> = self.parts.iter().map(ToString::to_string).collect();
+        write!(
+            f,
+            "ring system with rings of sizes {:?} is not in the ring tables; stand-in: {}",
+            self.ring_sizes,
+            parts.join(" + ")
+        )
+    }
 }
 
 /// The correction applied to one ring system.
@@ -74,7 +140,8 @@ impl RingCorrectionIndex {
                 // Benson's ring entropies assume the parent's real symmetry number; ours
                 // subtract R ln(sigma of the flat graph), so the entry moves by the ratio.
                 let flat = symmetry_number(&p.mol).total.max(1) as f64;
-                entropy_shift_j[i] = GAS_CONSTANT * (flat / parent_sigma.max(1) as f64).ln();
+                entropy_shift_j[i] =
+                    GAS_CONSTANT_J_PER_MOL_K * (flat / parent_sigma.max(1) as f64).ln();
             }
             let skeleton = skeletons.remove(0);
             let signature = skeleton.signature();
@@ -102,19 +169,23 @@ impl RingCorrectionIndex {
     }
 
     /// The entry for one ring, trying the ring itself, then all-carbon, then saturated carbon.
-    fn single_ring(&self, s: &RingSkeleton, entries: &[RingEntry]) -> Option<(usize, String)> {
+    fn single_ring(
+        &self,
+        s: &RingSkeleton,
+        entries: &[RingEntry],
+    ) -> Option<(usize, RingStandInPart)> {
+        let part = |i: usize, matched| {
+            let name = entries[i].name.clone();
+            (i, RingStandInPart::Entry { name, matched })
+        };
         if let Some(i) = self.find(s) {
-            return Some((i, entries[i].name.clone()));
+            return Some(part(i, RingPartMatch::Itself));
         }
         if let Some(i) = self.find(&s.all_carbon()) {
-            return Some((i, format!("{} (all-carbon stand-in)", entries[i].name)));
+            return Some(part(i, RingPartMatch::AllCarbon));
         }
-        self.find(&s.saturated_carbon()).map(|i| {
-            (
-                i,
-                format!("{} (saturated carbocycle stand-in)", entries[i].name),
-            )
-        })
+        self.find(&s.saturated_carbon())
+            .map(|i| part(i, RingPartMatch::SaturatedCarbon))
     }
 
     /// Ring corrections for every ring system of `p` that needs one.
@@ -154,21 +225,19 @@ impl RingCorrectionIndex {
                             used.push(i);
                             words.push(word);
                         }
-                        None => words.push(format!(
-                            "{}-ring with no entry (taken as strain-free)",
-                            single.ring_atom_count()
-                        )),
+                        None => words.push(RingStandInPart::NoEntry {
+                            ring_atoms: single.ring_atom_count(),
+                        }),
                     }
                 }
             }
             out.push(AppliedRingCorrection {
                 ring_sizes: ring_sizes.clone(),
                 entries: used,
-                how: RingMatch::Fallback(format!(
-                    "ring system with rings of sizes {ring_sizes:?} is not in the ring tables; \
-                     stand-in: {}",
-                    words.join(" + ")
-                )),
+                how: RingMatch::Fallback(RingStandIn {
+                    ring_sizes,
+                    parts: words,
+                }),
             });
         }
         out

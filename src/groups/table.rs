@@ -36,8 +36,7 @@ pub const CP_TEMPERATURES_K: [f64; 7] = [300.0, 400.0, 500.0, 600.0, 800.0, 1000
 /// Lowest temperature (K) at which [`ThermoIncrement::cp_at`] answers (extrapolated from 300 K).
 pub const CP_MIN_T_K: f64 = 298.15;
 
-/// Joules per thermochemical calorie (exact by definition).
-pub const JOULES_PER_CALORIE: f64 = 4.184;
+pub use crate::units::JOULES_PER_CALORIE;
 
 /// Which of the three properties an entry actually gives; the others hold `NaN`.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]

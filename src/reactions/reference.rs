@@ -254,6 +254,6 @@ pub fn group_additivity_fallback(
         estimator
             .estimate(&perceived, &EstimateOptions::default())
             .ok()
-            .map(|e| e.hf298_kj)
+            .and_then(|e| e.hf298_kj)
     }
 }

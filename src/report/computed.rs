@@ -7,8 +7,8 @@ use super::pm;
 use super::{cell, write_csv, SAFETY_NOTE};
 use crate::computed::ComputedCheck;
 use crate::reactions::SourceTag;
-use crate::thermo::quantity::EnergyUnit;
 use crate::thermo::Quantity;
+use crate::units::EnergyUnit;
 
 /// A check with what it was run on.
 #[derive(Debug, Clone, serde::Serialize)]

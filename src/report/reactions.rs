@@ -10,8 +10,8 @@ use crate::computed::energies::{template, InputUnit};
 use crate::input::InputRecord;
 use crate::molecule::parse_smiles;
 use crate::reactions::{build_reaction, Reaction, Rung, SourceTag, Species};
-use crate::thermo::quantity::EnergyUnit;
 use crate::thermo::Quantity;
+use crate::units::EnergyUnit;
 
 /// One species of a reaction with its role and reference value.
 #[derive(Debug, Clone, serde::Serialize)]

@@ -7,8 +7,8 @@ use super::{cell, pm, write_csv, Row, RowError, SAFETY_NOTE};
 use crate::input::InputRecord;
 use crate::molecule::parse_smiles;
 use crate::strain::{analyse_strain, StrainAnalysis, StrainData};
-use crate::thermo::quantity::EnergyUnit;
 use crate::thermo::Quantity;
+use crate::units::EnergyUnit;
 
 /// One analysed molecule.
 #[derive(Debug, Clone, serde::Serialize)]
@@ -263,7 +263,7 @@ pub fn render_csv(rows: &[Row<StrainRow>], unit: EnergyUnit) -> String {
                     })
                     .collect();
                 v.push(systems.join(" "));
-                v.push(a.flags.join(" | "));
+                v.push(crate::thermo::flags::joined(&a.flags));
                 v.push(String::new());
                 v
             }

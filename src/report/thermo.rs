@@ -11,9 +11,10 @@ use crate::input::InputRecord;
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::formula::Formula;
 use crate::molecule::{parse_smiles, PerceivedMolecule};
-use crate::thermo::estimate::{EstimateOptions, GroupAdditivity, TermKind, ThermoEstimate};
-use crate::thermo::quantity::{EnergyUnit, Quantity};
+use crate::thermo::estimate::{EstimateOptions, GroupAdditivity, ThermoEstimate};
+use crate::thermo::quantity::Quantity;
 use crate::thermo::temperature::StateAt;
+use crate::units::EnergyUnit;
 
 /// One estimated molecule.
 #[derive(Debug, Clone, serde::Serialize)]
@@ -113,7 +114,7 @@ pub fn render_table(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
                     (i + 1).to_string(),
                     title(r),
                     r.formula.clone(),
-                    pm(Some(e.hf298_kj), f, 1),
+                    pm(e.hf298_kj, f, 1),
                     pm(e.s298_j, f, 1),
                     pm(r.cp298_j, f, 1),
                     e.symmetry.total.to_string(),
@@ -223,17 +224,13 @@ pub fn render_explain(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
         ]);
         for term in &e.terms {
             let v = &term.per_unit;
-            let kind = match term.kind {
-                TermKind::Group => "group",
-                TermKind::Correction => "correction",
-                TermKind::Ring => "ring",
-            };
+            let kind = term.kind.to_string();
             let mut source = term.source.clone();
-            if let Some(n) = &term.note {
+            if let Some(n) = term.notes_text() {
                 source = format!("{n}; {source}");
             }
             t.add_row(vec![
-                kind.to_string(),
+                kind,
                 term.label.clone(),
                 term.count.to_string(),
                 pm(Some(Quantity::new(v.hf_kj, v.unc_hf_kj)), f, 2),
@@ -266,9 +263,9 @@ pub fn render_explain(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
         }
         out.push_str(&format!(
             "Hf298 = {} {}   (strain-free sum without ring corrections {})\n",
-            pm(Some(e.hf298_kj), f, 2),
+            pm(e.hf298_kj, f, 2),
             unit.energy_label(),
-            pm(Some(e.strain_free_hf298_kj), f, 2)
+            pm(e.strain_free_hf298_kj, f, 2)
         ));
         out.push_str(&format!(
             "S298  = {} {}   (includes -R ln sigma + R ln n)\n",
@@ -342,8 +339,8 @@ pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit, temperatures: &[f
                     r.name.clone().unwrap_or_default(),
                     r.canonical_smiles.clone(),
                     r.formula.clone(),
-                    cell(Some(e.hf298_kj.value * f), 3),
-                    cell(Some(e.hf298_kj.uncertainty * f), 3),
+                    cell(e.hf298_kj.map(|q| q.value * f), 3),
+                    cell(e.hf298_kj.map(|q| q.uncertainty * f), 3),
                     cell(e.s298_j.map(|q| q.value * f), 3),
                     cell(e.s298_j.map(|q| q.uncertainty * f), 3),
                     cell(r.cp298_j.map(|q| q.value * f), 3),
@@ -360,7 +357,7 @@ pub fn render_csv(rows: &[Row<EstimateRow>], unit: EnergyUnit, temperatures: &[f
                 }
                 v.push(e.symmetry.total.to_string());
                 v.push(e.symmetry.optical_isomers.to_string());
-                v.push(e.flags.join(" | "));
+                v.push(crate::thermo::flags::joined(&e.flags));
                 v.push(String::new());
                 v
             }

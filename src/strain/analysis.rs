@@ -1,5 +1,6 @@
 //! One molecule's strain by every scheme, with the spread between them.
 
+use super::flags::StrainFlag;
 use super::increments::{IncrementError, IncrementSet};
 use super::systems::{ring_correction_sum, ring_system_strain, RingSystemStrain};
 use super::target::{resolve_target_hf, TargetHf};
@@ -11,7 +12,7 @@ use crate::reactions::{
     ReferenceTable, Rung, SourceTag,
 };
 use crate::thermo::estimate::SetupError;
-use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity, ThermoEstimate};
+use crate::thermo::{EstimateOptions, GroupAdditivity, Property, Quantity, ThermoEstimate};
 
 /// How reference species missing from the table are priced, as reports name it.
 pub const FALLBACK_METHOD: &str = "Benson group additivity";
@@ -92,7 +93,7 @@ pub struct StrainAnalysis {
     /// Group strain not assigned to any ring system (measured minus estimated Hf298), kJ/mol.
     pub unassigned_kj: Option<Quantity>,
     /// Warnings: circular target value, fallbacks, stand-ins of the estimate.
-    pub flags: Vec<String>,
+    pub flags: Vec<StrainFlag>,
 }
 
 impl StrainAnalysis {
@@ -137,12 +138,7 @@ pub fn analyse_strain(
     let t = target.hf298_kj;
     let mut flags = Vec::new();
     if target.is_circular() {
-        flags.push(
-            "the target's Hf298 is the group-additivity estimate (no measured value known): \
-             the Benson group strain is then just the tables' ring correction, and the other \
-             schemes inherit the estimate's error"
-                .to_string(),
-        );
+        flags.push(StrainFlag::CircularTarget);
     }
     let mut schemes = Vec::new();
     schemes.push(benson_scheme(&estimate, &target));
@@ -183,10 +179,11 @@ pub fn analyse_strain(
                     .map(str::to_string)
                     .collect();
                 if !fallbacks.is_empty() {
-                    flags.push(format!(
-                        "{rung}: {} priced by {FALLBACK_METHOD} (not in the reference table)",
-                        fallbacks.join(", ")
-                    ));
+                    flags.push(StrainFlag::ReferencesByFallback {
+                        rung,
+                        species: fallbacks.clone(),
+                        method: FALLBACK_METHOD,
+                    });
                 }
                 let se = Quantity::new(-heat.dh298_kj.value, heat.dh298_kj.uncertainty);
                 // Hf the reaction gives a strain-free target: Hf(target) + dH.
@@ -228,13 +225,17 @@ pub fn analyse_strain(
             flags.extend(
                 e.flags
                     .iter()
-                    .filter(|f| !f.contains("S298 not estimated") && !f.contains("Cp(T) not"))
-                    .map(|f| format!("group additivity: {f}")),
+                    .filter(|f| {
+                        !matches!(f.missing_property(), Some(Property::S298 | Property::Cp))
+                    })
+                    .map(|f| StrainFlag::GroupAdditivity(f.clone())),
             );
             let systems = ring_system_strain(&perceived, &data.engine, e);
-            let residual = (!target.is_circular())
-                .then(|| Quantity::new(t.value - e.hf298_kj.value, in_quadrature(t, e.hf298_kj)));
-            (systems, residual, Some(e.hf298_kj))
+            let residual = e
+                .hf298_kj
+                .filter(|_| !target.is_circular())
+                .map(|hf| Quantity::new(t.value - hf.value, in_quadrature(t, hf)));
+            (systems, residual, e.hf298_kj)
         }
         Err(_) => (Vec::new(), None, None),
     };
@@ -275,13 +276,12 @@ fn benson_scheme(
         Ok(e) => e,
         Err(err) => return unavailable(name, format!("group additivity fails: {err}")),
     };
-    let free = e.strain_free_hf298_kj;
-    if !free.value.is_finite() {
+    let Some(free) = e.strain_free_hf298_kj else {
         return unavailable(
             name,
             "the strain-free group sum is not available".to_string(),
         );
-    }
+    };
     let t = target.hf298_kj;
     let strain = if target.is_circular() {
         ring_correction_sum(e)

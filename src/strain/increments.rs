@@ -18,8 +18,8 @@ use std::path::Path;
 use serde::Deserialize;
 
 use crate::molecule::{BondOrder, Element, Molecule};
-use crate::thermo::quantity::JOULES_PER_CALORIE;
 use crate::thermo::Quantity;
+use crate::units::JOULES_PER_CALORIE;
 
 /// Path label of the bundled file (relative to the crate root).
 pub const BUNDLED_INCREMENTS_PATH: &str = "group-tables/reference/strain-free-increments.toml";

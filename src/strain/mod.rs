@@ -16,11 +16,13 @@
 //! ```
 
 pub mod analysis;
+pub mod flags;
 pub mod increments;
 pub mod systems;
 pub mod target;
 
 pub use analysis::{analyse_strain, SchemeStrain, StrainAnalysis, StrainData, StrainError};
+pub use flags::StrainFlag;
 pub use increments::IncrementSet;
 pub use systems::RingSystemStrain;
 pub use target::{resolve_target_hf, TargetHf, TargetHfOrigin};

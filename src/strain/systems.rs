@@ -43,9 +43,9 @@ pub fn ring_system_strain(
     let applied = engine.ring_index.apply(p, &engine.tables);
     let mut out = Vec::new();
     for (k, (skeleton, system)) in skeletons.iter().zip(applied).enumerate() {
-        let (stand_in, note) = match &system.how {
-            RingMatch::Exact => (None, None),
-            RingMatch::Fallback(text) => (Some(text.clone()), Some("fallback stand-in")),
+        let stand_in = match &system.how {
+            RingMatch::Exact => None,
+            RingMatch::Fallback(what) => Some(what.to_string()),
         };
         let mut value = 0.0;
         let mut variance = 0.0;
@@ -54,7 +54,9 @@ pub fn ring_system_strain(
             let entry = &entries[i];
             // The estimate's term carries the uncertainty actually used (widened for stand-ins).
             let term = estimate.terms.iter().find(|t| {
-                t.kind == TermKind::Ring && t.label == entry.name && t.note.as_deref() == note
+                t.kind == TermKind::Ring
+                    && t.label == entry.name
+                    && t.is_ring_stand_in() == stand_in.is_some()
             });
             let v = term.map_or(entry.values, |t| t.per_unit);
             value += v.hf_kj;

@@ -79,9 +79,10 @@ pub fn resolve_target_hf(
         });
     }
     estimate
-        .filter(|e| e.hf298_kj.value.is_finite())
-        .map(|e| TargetHf {
-            hf298_kj: e.hf298_kj,
+        .and_then(|e| e.hf298_kj)
+        .filter(|hf| hf.value.is_finite())
+        .map(|hf298_kj| TargetHf {
+            hf298_kj,
             origin: TargetHfOrigin::GroupAdditivity,
         })
 }

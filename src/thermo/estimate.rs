@@ -1,15 +1,24 @@
 //! Group-additivity estimate of one molecule: groups + corrections + ring corrections + symmetry.
+//!
+//! [`GroupAdditivity::estimate`] runs the steps in order, each returning its terms and flags
+//! ([`StepTerms`]): [`GroupAdditivity::group_terms`], [`GroupAdditivity::correction_terms`],
+//! [`GroupAdditivity::ring_terms`]; then the symmetry and the sums. A missing property is
+//! `None` with a [`Flag::PropertyNotEstimated`] saying which terms lack it.
 
 use petgraph::graph::NodeIndex;
 
-use super::quantity::{Quantity, GAS_CONSTANT};
-use crate::groups::assign::{assign_groups, stand_in_candidates};
+use super::flags::{Flag, Property};
+use super::quantity::Quantity;
+use super::terms::{hf298_sums, s298_cp_sums};
+pub use super::terms::{StepTerms, Term, TermKind, TermNote};
+use crate::groups::assign::{assign_groups, stand_in_candidates, GroupAssignment};
 use crate::groups::interactions::count_interactions;
 use crate::groups::ring_corrections::{RingCorrectionIndex, RingMatch, RingPatternError};
 use crate::groups::table::{GroupTables, TableError, ThermoIncrement, CP_TEMPERATURES_K};
 use crate::groups::GroupKey;
 use crate::molecule::symmetry::symmetry_number;
 use crate::molecule::PerceivedMolecule;
+use crate::units::GAS_CONSTANT_J_PER_MOL_K;
 
 /// Extra uncertainty added to a group that stands in for a missing one: our choice, about the
 /// spread between neighbouring groups of one family (kJ/mol and J/(mol K)).
@@ -42,34 +51,6 @@ fn graph_symmetry(p: &PerceivedMolecule) -> SymmetryUsed {
         optical_isomers: info.optical_isomers,
         notes: info.notes,
     }
-}
-
-/// What a term of the sum is.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
-pub enum TermKind {
-    /// A Benson group.
-    Group,
-    /// A non-ring correction (gauche, cis, ...).
-    Correction,
-    /// A ring correction.
-    Ring,
-}
-
-/// One line of the explain view: a table entry, how often it counts, and where it comes from.
-#[derive(Debug, Clone, serde::Serialize)]
-pub struct Term {
-    /// Group, correction or ring.
-    pub kind: TermKind,
-    /// Group key, correction name or ring name.
-    pub label: String,
-    /// Occurrences.
-    pub count: u32,
-    /// Values per occurrence (SI).
-    pub per_unit: ThermoIncrement,
-    /// Source of the values.
-    pub source: String,
-    /// Stand-in or other remark, if any.
-    pub note: Option<String>,
 }
 
 /// Options of an estimate.
@@ -146,42 +127,19 @@ pub struct ThermoEstimate {
     /// Every group, correction and ring term with its count.
     pub terms: Vec<Term>,
     /// Visible warnings: stand-ins, assumptions, missing properties.
-    pub flags: Vec<String>,
+    pub flags: Vec<Flag>,
     /// Symmetry number and optical isomers used for the entropy.
     pub symmetry: SymmetryUsed,
     /// Whether the symmetry came from the user.
     pub symmetry_overridden: bool,
-    /// Hf298, kJ/mol.
-    pub hf298_kj: Quantity,
-    /// Hf298 without ring corrections (Benson's strain-free sum), kJ/mol.
-    pub strain_free_hf298_kj: Quantity,
+    /// Hf298, kJ/mol, if every term gives one.
+    pub hf298_kj: Option<Quantity>,
+    /// Hf298 without ring corrections (Benson's strain-free sum), kJ/mol, if every term gives one.
+    pub strain_free_hf298_kj: Option<Quantity>,
     /// S298, J/(mol K), if every term gives an entropy.
     pub s298_j: Option<Quantity>,
     /// Cp at [`CP_TEMPERATURES_K`], J/(mol K), if every term gives one.
     pub cp_j: Option<[Quantity; 7]>,
-}
-
-/// A summed property with its uncertainty.
-#[derive(Default, Clone, Copy)]
-struct Sum {
-    value: f64,
-    variance: f64,
-    missing: bool,
-}
-
-impl Sum {
-    fn add(&mut self, value: f64, unc: f64, count: f64, known: bool) {
-        if !known || !value.is_finite() {
-            self.missing = true;
-            return;
-        }
-        self.value += count * value;
-        // Same entry counted n times: errors add linearly within, in quadrature across entries.
-        self.variance += (count * unc).powi(2);
-    }
-    fn quantity(&self) -> Option<Quantity> {
-        (!self.missing).then(|| Quantity::new(self.value, self.variance.sqrt()))
-    }
 }
 
 /// Tables plus the ring-correction index: everything needed to estimate molecules.
@@ -212,34 +170,28 @@ impl GroupAdditivity {
         GroupAdditivity::new(GroupTables::bundled()?)
     }
 
-    /// Estimates Hf298, S298 and Cp(T) of one molecule.
+    /// Estimates Hf298, S298 and Cp(T) of one molecule: the steps below in order, then the sums.
     pub fn estimate(
         &self,
         p: &PerceivedMolecule,
         options: &EstimateOptions,
     ) -> Result<ThermoEstimate, EstimateError> {
-        if p.mol.atom_count() == 0 {
-            return Err(EstimateError::NotOneMolecule("no atoms".into()));
-        }
-        if p.mol.component_count() > 1 {
-            return Err(EstimateError::NotOneMolecule(
-                "several disconnected molecules: estimate each on its own".into(),
-            ));
-        }
-        let assignment = assign_groups(p).map_err(|u| {
-            let atom = p.mol.atom(u.atom);
-            EstimateError::Untyped {
-                atom: u.atom.index() + 1,
-                element: atom.element.to_string(),
-                column: atom.column,
-                reason: u.reason,
-            }
-        })?;
-        let mut terms: Vec<Term> = Vec::new();
-        let mut flags: Vec<String> = Vec::new();
-        let mut missing: Vec<MissingGroup> = Vec::new();
+        check_one_molecule(p)?;
+        let assignment = assign(p)?;
+        let mut steps = self.group_terms(&assignment, options)?;
+        steps.extend(self.correction_terms(p, &assignment, options)?);
+        steps.extend(self.ring_terms(p, options)?);
+        let (symmetry, overridden) = symmetry_used(p, options);
+        Ok(total(steps, symmetry, overridden))
+    }
 
-        // Groups, counted by key in first-seen order.
+    /// Step 1: one term per distinct Benson group (first-seen order), with stand-ins for
+    /// groups the tables lack (unless strict). Groups with neither are an error naming them.
+    pub fn group_terms(
+        &self,
+        assignment: &GroupAssignment,
+        options: &EstimateOptions,
+    ) -> Result<StepTerms, EstimateError> {
         let mut counted: Vec<(GroupKey, u32, NodeIndex)> = Vec::new();
         for g in &assignment.groups {
             match counted.iter_mut().find(|(k, _, _)| *k == g.key) {
@@ -252,43 +204,44 @@ impl GroupAdditivity {
                 "no group centre (only hydrogens and halogens)".into(),
             ));
         }
+        let mut out = StepTerms::default();
+        let mut missing: Vec<MissingGroup> = Vec::new();
         for (key, count, atom) in counted {
-            let found = self.tables.group(&key).filter(|e| e.values.known.hf);
-            if let Some(entry) = found {
-                terms.push(Term {
+            let with_hf = |k: &GroupKey| self.tables.group(k).filter(|e| e.values.known.hf);
+            if let Some(entry) = with_hf(&key) {
+                out.terms.push(Term {
                     kind: TermKind::Group,
                     label: key.to_string(),
                     count,
                     per_unit: entry.values,
                     source: entry.source.clone(),
-                    note: entry
+                    notes: entry
                         .same_as
-                        .as_ref()
-                        .map(|s| format!("taken equal to {s}")),
+                        .iter()
+                        .map(|g| TermNote::TakenEqual { group: g.clone() })
+                        .collect(),
                 });
                 continue;
             }
             let stand_in = stand_in_candidates(&key)
                 .into_iter()
                 .filter(|_| !options.strict)
-                .find_map(|k| {
-                    self.tables
-                        .group(&k)
-                        .filter(|e| e.values.known.hf)
-                        .map(|e| (k, e))
-                });
+                .find_map(|k| with_hf(&k).map(|e| (k, e)));
             match stand_in {
                 Some((k, entry)) => {
-                    flags.push(format!(
-                        "group {key} is not in the tables; {k} stands in (uncertainty widened)"
-                    ));
-                    terms.push(Term {
+                    out.terms.push(Term {
                         kind: TermKind::Group,
                         label: key.to_string(),
                         count,
                         per_unit: inflate(entry.values, STAND_IN_EXTRA_UNC),
                         source: entry.source.clone(),
-                        note: Some(format!("stand-in: {k}")),
+                        notes: vec![TermNote::StandIn {
+                            entry: k.to_string(),
+                        }],
+                    });
+                    out.flags.push(Flag::GroupStandIn {
+                        group: key,
+                        stand_in: k,
                     });
                 }
                 None => missing.push(MissingGroup {
@@ -298,14 +251,26 @@ impl GroupAdditivity {
                 }),
             }
         }
-        if !missing.is_empty() {
-            return Err(EstimateError::MissingGroups(missing));
+        if missing.is_empty() {
+            Ok(out)
+        } else {
+            Err(EstimateError::MissingGroups(missing))
         }
+    }
 
-        // Non-ring corrections.
+    /// Step 2: the non-ring corrections (gauche, cis, ortho, ...) counted on the molecule,
+    /// with stand-ins (unless strict) and the assumptions made while counting.
+    pub fn correction_terms(
+        &self,
+        p: &PerceivedMolecule,
+        assignment: &GroupAssignment,
+        options: &EstimateOptions,
+    ) -> Result<StepTerms, EstimateError> {
         let interactions = count_interactions(p, &assignment.types);
-        flags.extend(interactions.notes);
-        let mut missing_corrections: Vec<(String, u32)> = Vec::new();
+        let mut out = StepTerms::default();
+        out.flags
+            .extend(interactions.notes.into_iter().map(Flag::Interaction));
+        let mut missing: Vec<(String, u32)> = Vec::new();
         for c in interactions.counts {
             let exact = self.tables.correction(&c.name);
             let stand_in = c
@@ -313,40 +278,51 @@ impl GroupAdditivity {
                 .filter(|_| !options.strict)
                 .and_then(|f| self.tables.correction(f));
             match (exact, stand_in) {
-                (Some(entry), _) => terms.push(Term {
+                (Some(entry), _) => out.terms.push(Term {
                     kind: TermKind::Correction,
-                    label: c.name.clone(),
+                    label: c.name,
                     count: c.count,
                     per_unit: entry.values,
                     source: entry.source.clone(),
-                    note: None,
+                    notes: Vec::new(),
                 }),
                 (None, Some(entry)) => {
-                    flags.push(format!(
-                        "correction {} is not in the tables; {} stands in",
-                        c.name, entry.name
-                    ));
-                    terms.push(Term {
+                    out.flags.push(Flag::CorrectionStandIn {
+                        correction: c.name.clone(),
+                        stand_in: entry.name.clone(),
+                    });
+                    out.terms.push(Term {
                         kind: TermKind::Correction,
-                        label: c.name.clone(),
+                        label: c.name,
                         count: c.count,
                         per_unit: inflate(entry.values, STAND_IN_EXTRA_UNC),
                         source: entry.source.clone(),
-                        note: Some(format!("stand-in: {}", entry.name)),
+                        notes: vec![TermNote::StandIn {
+                            entry: entry.name.clone(),
+                        }],
                     });
                 }
-                (None, None) if options.strict => missing_corrections.push((c.name, c.count)),
-                (None, None) => flags.push(format!(
-                    "{} x {} counted, but the tables have no `{}` correction: not applied",
-                    c.count, c.name, c.name
-                )),
+                (None, None) if options.strict => missing.push((c.name, c.count)),
+                (None, None) => out.flags.push(Flag::CorrectionNotApplied {
+                    correction: c.name,
+                    count: c.count,
+                }),
             }
         }
-        if !missing_corrections.is_empty() {
-            return Err(EstimateError::MissingCorrections(missing_corrections));
+        if missing.is_empty() {
+            Ok(out)
+        } else {
+            Err(EstimateError::MissingCorrections(missing))
         }
+    }
 
-        // Ring corrections.
+    /// Step 3: one ring correction per ring system that needs one (or the stand-ins of its
+    /// rings, flagged and widened), entropies moved to the flat-graph symmetry convention.
+    pub fn ring_terms(
+        &self,
+        p: &PerceivedMolecule,
+        options: &EstimateOptions,
+    ) -> Result<StepTerms, EstimateError> {
         let entries = self.tables.rings();
         let applied_rings = self.ring_index.apply(p, &self.tables);
         if options.strict {
@@ -358,135 +334,140 @@ impl GroupAdditivity {
                 return Err(EstimateError::MissingRings(unmatched));
             }
         }
+        let mut out = StepTerms::default();
         for applied in applied_rings {
-            let (note, extra) = match &applied.how {
-                RingMatch::Exact => (None, None),
-                RingMatch::Fallback(text) => {
-                    flags.push(text.clone());
-                    (
-                        Some("fallback stand-in".to_string()),
-                        Some(RING_FALLBACK_EXTRA_UNC),
-                    )
+            let stand_in = match applied.how {
+                RingMatch::Exact => false,
+                RingMatch::Fallback(what) => {
+                    out.flags.push(Flag::RingStandIn(what));
+                    true
                 }
             };
-            if applied.entries.is_empty() {
-                continue;
-            }
             for &i in &applied.entries {
                 let entry = &entries[i];
-                let mut values = match extra {
-                    Some(x) => inflate(entry.values, x),
-                    None => entry.values,
+                let mut values = if stand_in {
+                    inflate(entry.values, RING_FALLBACK_EXTRA_UNC)
+                } else {
+                    entry.values
                 };
-                let shift = self.ring_index.entropy_shift_j(i);
-                values.s_j += shift;
-                let note = match (&note, shift.abs() > 1e-9, entry.parent_symmetry) {
-                    (n, true, Some(sigma)) => Some(
-                        n.iter()
-                            .cloned()
-                            .chain(std::iter::once(format!(
-                                "entropy moved by {shift:+.2} J/(mol K) from the parent's \
-                                 sigma {sigma} to the flat-graph convention"
-                            )))
-                            .collect::<Vec<_>>()
-                            .join("; "),
-                    ),
-                    (n, _, _) => n.clone(),
+                let shift_j = self.ring_index.entropy_shift_j(i);
+                values.s_j += shift_j;
+                let mut notes = Vec::new();
+                if stand_in {
+                    notes.push(TermNote::RingStandIn);
+                }
+                if let (true, Some(parent_sigma)) = (shift_j.abs() > 1e-9, entry.parent_symmetry) {
+                    notes.push(TermNote::EntropyShift {
+                        shift_j,
+                        parent_sigma,
+                    });
+                }
+                let same = |t: &&mut Term| {
+                    t.kind == TermKind::Ring && t.label == entry.name && t.notes == notes
                 };
-                match terms
-                    .iter_mut()
-                    .find(|t| t.kind == TermKind::Ring && t.label == entry.name && t.note == note)
-                {
+                match out.terms.iter_mut().find(same) {
                     Some(t) => t.count += 1,
-                    None => terms.push(Term {
+                    None => out.terms.push(Term {
                         kind: TermKind::Ring,
                         label: entry.name.clone(),
                         count: 1,
                         per_unit: values,
                         source: entry.source.clone(),
-                        note: note.clone(),
+                        notes,
                     }),
                 }
             }
         }
+        Ok(out)
+    }
+}
 
-        // Sums.
-        let mut hf = Sum::default();
-        let mut hf_free = Sum::default();
-        let mut s = Sum::default();
-        let mut cp = [Sum::default(); 7];
-        for t in &terms {
-            let v = &t.per_unit;
-            let n = t.count as f64;
-            hf.add(v.hf_kj, v.unc_hf_kj, n, v.known.hf);
-            if t.kind != TermKind::Ring {
-                hf_free.add(v.hf_kj, v.unc_hf_kj, n, v.known.hf);
-            }
-            s.add(v.s_j, v.unc_s_j, n, v.known.s);
-            for (k, c) in cp.iter_mut().enumerate() {
-                c.add(v.cp_j[k], v.unc_cp_j, n, v.known.cp);
-            }
+/// Refuses an empty input and several disconnected molecules.
+fn check_one_molecule(p: &PerceivedMolecule) -> Result<(), EstimateError> {
+    if p.mol.atom_count() == 0 {
+        return Err(EstimateError::NotOneMolecule("no atoms".into()));
+    }
+    if p.mol.component_count() > 1 {
+        return Err(EstimateError::NotOneMolecule(
+            "several disconnected molecules: estimate each on its own".into(),
+        ));
+    }
+    Ok(())
+}
+
+/// Benson groups of every heavy atom; an atom without a Benson type is an error naming it.
+fn assign(p: &PerceivedMolecule) -> Result<GroupAssignment, EstimateError> {
+    assign_groups(p).map_err(|u| {
+        let atom = p.mol.atom(u.atom);
+        EstimateError::Untyped {
+            atom: u.atom.index() + 1,
+            element: atom.element.to_string(),
+            column: atom.column,
+            reason: u.reason,
         }
-        let (symmetry, overridden) = match options.symmetry_override {
-            // The user's value replaces the graph's; the graph is not searched at all.
-            Some((sigma, n)) => (
-                SymmetryUsed {
-                    total: sigma.max(1),
-                    external: sigma.max(1),
-                    internal: 1,
-                    optical_isomers: n.max(1),
-                    notes: vec!["symmetry number and optical isomers given by the user".into()],
-                },
-                true,
-            ),
-            None => (graph_symmetry(p), false),
-        };
-        let s298 = s.quantity().map(|q| {
-            let sym = -GAS_CONSTANT * (symmetry.total.max(1) as f64).ln()
-                + GAS_CONSTANT * (symmetry.optical_isomers.max(1) as f64).ln();
-            Quantity::new(q.value + sym, q.uncertainty)
-        });
-        let lacking = |has: fn(&ThermoIncrement) -> bool| -> String {
-            terms
-                .iter()
-                .filter(|t| !has(&t.per_unit))
-                .map(|t| t.label.clone())
-                .collect::<Vec<_>>()
-                .join(", ")
-        };
-        if s298.is_none() {
-            flags.push(format!(
-                "no entropy in the tables for {}: S298 not estimated",
-                lacking(|v| v.known.s)
-            ));
+    })
+}
+
+/// The symmetry for the entropy: the user's (the graph is then not searched at all) or the
+/// graph's; true when it is the user's.
+fn symmetry_used(p: &PerceivedMolecule, options: &EstimateOptions) -> (SymmetryUsed, bool) {
+    match options.symmetry_override {
+        Some((sigma, n)) => (
+            SymmetryUsed {
+                total: sigma.max(1),
+                external: sigma.max(1),
+                internal: 1,
+                optical_isomers: n.max(1),
+                notes: vec!["symmetry number and optical isomers given by the user".into()],
+            },
+            true,
+        ),
+        None => (graph_symmetry(p), false),
+    }
+}
+
+/// Last step: sums the terms, adds the symmetry term to S298, and flags every property some
+/// term lacks.
+fn total(steps: StepTerms, symmetry: SymmetryUsed, overridden: bool) -> ThermoEstimate {
+    let StepTerms { terms, mut flags } = steps;
+    let (hf, hf_free) = hf298_sums(&terms);
+    let (s, cp) = s298_cp_sums(&terms);
+    let symmetry_term = -GAS_CONSTANT_J_PER_MOL_K * (symmetry.total.max(1) as f64).ln()
+        + GAS_CONSTANT_J_PER_MOL_K * f64::from(symmetry.optical_isomers.max(1)).ln();
+    let s298_j = s
+        .quantity()
+        .map(|q| Quantity::new(q.value + symmetry_term, q.uncertainty));
+    let cp_j = cp
+        .iter()
+        .map(|c| c.quantity())
+        .collect::<Option<Vec<Quantity>>>()
+        .and_then(|v| <[Quantity; 7]>::try_from(v).ok());
+    let hf298_kj = hf.quantity();
+    for (property, missing) in [
+        (Property::Hf298, hf298_kj.is_none()),
+        (Property::S298, s298_j.is_none()),
+        (Property::Cp, cp_j.is_none()),
+    ] {
+        if missing {
+            flags.push(Flag::PropertyNotEstimated {
+                property,
+                lacking: terms
+                    .iter()
+                    .filter(|t| !t.gives(property))
+                    .map(|t| t.label.clone())
+                    .collect(),
+            });
         }
-        let cp_j = if cp.iter().any(|c| c.missing) {
-            flags.push(format!(
-                "no heat capacity in the tables for {}: Cp(T) not estimated",
-                lacking(|v| v.known.cp)
-            ));
-            None
-        } else {
-            let mut out = [Quantity::new(0.0, 0.0); 7];
-            for (o, c) in out.iter_mut().zip(cp.iter()) {
-                *o = Quantity::new(c.value, c.variance.sqrt());
-            }
-            Some(out)
-        };
-        let hf298 = hf.quantity().unwrap_or(Quantity::new(f64::NAN, f64::NAN));
-        let strain_free = hf_free
-            .quantity()
-            .unwrap_or(Quantity::new(f64::NAN, f64::NAN));
-        Ok(ThermoEstimate {
-            terms,
-            flags,
-            symmetry,
-            symmetry_overridden: overridden,
-            hf298_kj: hf298,
-            strain_free_hf298_kj: strain_free,
-            s298_j: s298,
-            cp_j,
-        })
+    }
+    ThermoEstimate {
+        terms,
+        flags,
+        symmetry,
+        symmetry_overridden: overridden,
+        hf298_kj,
+        strain_free_hf298_kj: hf_free.quantity(),
+        s298_j,
+        cp_j,
     }
 }
 

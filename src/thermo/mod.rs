@@ -1,8 +1,11 @@
 //! Thermochemistry from groups: Hf298, S298, Cp(T), H(T), S(T), G(T) with uncertainties.
 
 pub mod estimate;
+pub mod flags;
 pub mod quantity;
 pub mod temperature;
+pub mod terms;
 
 pub use estimate::{EstimateError, EstimateOptions, GroupAdditivity, ThermoEstimate};
-pub use quantity::{EnergyUnit, Quantity};
+pub use flags::{Flag, FlagCategory, Property};
+pub use quantity::Quantity;

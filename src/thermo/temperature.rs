@@ -5,8 +5,9 @@
 //! temperature nothing is returned: extrapolation is left to the polynomial fit.
 
 use super::estimate::ThermoEstimate;
-use super::quantity::{Quantity, T_REF_K};
+use super::quantity::Quantity;
 use crate::groups::table::CP_TEMPERATURES_K;
+use crate::units::T_REF_K;
 
 /// Properties of a species at one temperature (kJ/mol, J/(mol K)).
 #[derive(Debug, Clone, Copy, PartialEq, serde::Serialize)]
@@ -81,15 +82,16 @@ impl ThermoEstimate {
     pub fn state_at(&self, t_k: f64) -> Option<StateAt> {
         let cp_q = self.cp_j?;
         let s298 = self.s298_j?;
+        let hf298 = self.hf298_kj?;
         let knots = cp_knots(&cp_q.map(|q| q.value));
         let unc_knots = cp_knots(&cp_q.map(|q| q.uncertainty));
         let cp_t = cp_at(&knots, t_k)?;
         let (dh_j, ds) = integrate(&knots, t_k)?;
         // Cp errors of one table entry move together at all temperatures: integrate them.
         let (dh_unc_j, ds_unc) = integrate(&unc_knots, t_k)?;
-        let h_kj = self.hf298_kj.value + dh_j / 1000.0;
+        let h_kj = hf298.value + dh_j / 1000.0;
         let s_j = s298.value + ds;
-        let h_unc_kj = self.hf298_kj.uncertainty + dh_unc_j.abs() / 1000.0;
+        let h_unc_kj = hf298.uncertainty + dh_unc_j.abs() / 1000.0;
         let s_unc_j = s298.uncertainty + ds_unc.abs();
         Some(StateAt {
             t_k,

@@ -39,8 +39,7 @@ use labelled::{LabelledGraph, UnitKind};
 use reduce::fold_terminals;
 use search::proper_group_order;
 
-/// Molar gas constant in J/(mol K) (CODATA 2018 exact value, as fixed by the SI).
-const GAS_CONSTANT_J_PER_MOL_K: f64 = 8.314462618;
+use crate::units::GAS_CONSTANT_J_PER_MOL_K;
 
 /// How the symmetry number was obtained.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
