@@ -31,6 +31,7 @@ use std::collections::{BTreeMap, HashMap, HashSet};
 use std::fmt::Write as _;
 use std::path::{Path, PathBuf};
 
+use ringheat::data::{Cas, DerivedFrom, Property, Provenance};
 use ringheat::groups::assign::assign_groups;
 use ringheat::groups::interactions::count_interactions;
 use ringheat::groups::ring_match::correction_skeletons;
@@ -256,18 +257,7 @@ fn main() {
     // Compounds already used by other files' derivations stay unavailable.
     let base = GroupTables::load_dir(&work).expect("tables load");
     let mut used: HashSet<String> = HashSet::new();
-    let derived_texts = base
-        .groups()
-        .filter_map(|g| g.derived_from.clone())
-        .chain(base.corrections().filter_map(|c| c.derived_from.clone()))
-        .chain(base.rings().iter().filter_map(|r| r.derived_from.clone()));
-    for t in derived_texts {
-        for w in t.split(|c: char| !(c.is_ascii_digit() || c == '-')) {
-            if w.split('-').count() == 3 {
-                used.insert(w.to_string());
-            }
-        }
-    }
+    used.extend(base.derived_cas(Property::Hf));
     let mut groups_out = String::new();
     let mut rings_out = String::new();
     let mut corrections_out = String::new();
@@ -455,6 +445,8 @@ fn main() {
                 "Hf298 {:.2} kJ/mol ({}, thermo_reference.tsv)",
                 r.hf, r.hf_source
             );
+            // The properties whose values rest on this compound's measurements.
+            let mut derived = vec![Property::Hf];
             if conformational {
                 let _ = write!(
                     out,
@@ -475,6 +467,7 @@ fn main() {
                     let s = (s_meas - s_est.value) / k;
                     let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
                     let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
+                    derived.push(Property::S);
                     what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) ({s_from})"));
                 }
                 if let (Some(cp_meas), Some(cp_est)) = (trc_of.and_then(|t| t.cp_j), est.cp_j) {
@@ -488,16 +481,24 @@ fn main() {
                         .map(|e| TRC_CP_UNC_J.hypot(e.uncertainty) / k)
                         .fold(0.0, f64::max);
                     let _ = write!(out, "cp = [{}]\nunc_cp = {unc_cp:.2}\n", cp.join(", "));
+                    derived.push(Property::Cp);
                     what.push_str(
                         " and ideal-gas Cp(T) at 300-1500 K (TRC correlation, \
                          trc_heat_capacity.tsv)",
                     );
                 }
             }
+            let provenance = Provenance {
+                derived_from: vec![DerivedFrom {
+                    cas: Cas::parse(&r.cas).expect("reference CAS numbers are well formed"),
+                    name: r.name.clone(),
+                    properties: derived,
+                }],
+            };
             let _ = write!(
                 out,
                 "derived_from = {}\nsource = {}\n",
-                toml_string(&format!("{}, {}", r.name, r.cas)),
+                provenance.to_toml().unwrap_or_default(),
                 toml_string(&format!(
                     "Derived from one measured compound: {} (CAS {}): {}, minus the other \
                      terms of ringheat's tables{with}, divided by {} occurrence(s); measured \

@@ -18,6 +18,7 @@
 //! ```
 
 pub mod computed;
+pub mod data;
 pub mod groups;
 pub mod input;
 pub mod molecule;

@@ -1,4 +1,5 @@
-//! Every table value derived from one measured compound (`derived_from`) must give that
+//! Every table Hf298 value derived from one measured compound (`derived_from` listing `hf`) must
+//! give that
 //! compound's measured Hf298 back with the final tables: a derivation that absorbed another
 //! term's effect, or a later table change that the derivation did not see, shows up here.
 
@@ -7,6 +8,7 @@ mod common;
 use std::collections::HashMap;
 
 use common::Table;
+use ringheat::data::Property;
 use ringheat::molecule::PerceivedMolecule;
 use ringheat::thermo::estimate::{EstimateOptions, GroupAdditivity};
 
@@ -31,23 +33,20 @@ fn derived_entries_reproduce_their_source_compounds() {
             Some((r.get(c_cas).to_string(), (r.get(c_smiles).to_string(), hf)))
         })
         .collect();
-    let t = &engine.tables;
-    let sources = t
-        .groups()
-        .filter_map(|g| g.derived_from.clone().map(|d| (g.key.to_string(), d)))
-        .chain(
-            t.corrections()
-                .filter_map(|c| c.derived_from.clone().map(|d| (c.name.clone(), d))),
-        )
-        .chain(
-            t.rings()
-                .iter()
-                .filter_map(|r| r.derived_from.clone().map(|d| (r.name.clone(), d))),
-        );
+    let sources = engine.tables.provenances().flat_map(|(entry, p)| {
+        p.compounds_for(Property::Hf)
+            .map(|d| {
+                (
+                    entry.clone(),
+                    format!("{} ({})", d.name, d.cas),
+                    d.cas.to_string(),
+                )
+            })
+            .collect::<Vec<_>>()
+    });
     let mut checked = 0;
     let mut off = Vec::new();
-    for (entry, from) in sources {
-        let cas = from.rsplit(',').next().unwrap_or("").trim().to_string();
+    for (entry, from, cas) in sources {
         // Hand-derived entries may name a compound the reference set does not hold.
         let Some((smiles, hf)) = measured.get(&cas) else {
             continue;

@@ -3,16 +3,14 @@
 //!
 //! Prints coverage and mean absolute errors by class and the 15 worst species, and asserts the
 //! thresholds of the group-additivity issue. Species that a table entry was derived from
-//! (`derived_from` names their CAS number; `s_derived_from` and `cp_derived_from` for the
-//! entropy or the heat capacity only) are
-//! left out of the error statistics (of that property), since their
+//! (`derived_from` names their CAS number and the properties) are left out of the error
+//! statistics of those properties (of every property when `hf` is among them), since their
 //! error is zero by construction.
 
 mod common;
 
-use std::collections::HashSet;
-
 use common::Table;
+use ringheat::data::Property;
 use ringheat::molecule::PerceivedMolecule;
 use ringheat::thermo::estimate::{EstimateOptions, GroupAdditivity};
 
@@ -29,19 +27,6 @@ struct Outcome {
     cp_err_cal: Option<f64>,
     flagged: bool,
     detail: String,
-}
-
-fn cas_numbers(text: &str) -> Vec<String> {
-    text.split(|c: char| !(c.is_ascii_digit() || c == '-'))
-        .filter(|w| {
-            let parts: Vec<&str> = w.split('-').collect();
-            parts.len() == 3
-                && parts.iter().all(|p| !p.is_empty())
-                && parts[1].len() == 2
-                && parts[2].len() == 1
-        })
-        .map(str::to_string)
-        .collect()
 }
 
 fn mae(values: impl Iterator<Item = f64>) -> (f64, usize) {
@@ -125,28 +110,12 @@ fn validate() -> Figures {
 /// Runs the comparison, prints the report and returns the figures.
 fn run_validation() -> Figures {
     let engine = GroupAdditivity::bundled().expect("bundled tables load");
-    // CAS numbers that table values were derived from (all properties, or S or Cp only).
+    // CAS numbers that table values were derived from: Hf298 (the species is then left out),
+    // or S298 or Cp only.
     let t = &engine.tables;
-    let provenance = t
-        .groups()
-        .map(|g| (&g.derived_from, &g.s_derived_from, &g.cp_derived_from))
-        .chain(
-            t.corrections()
-                .map(|c| (&c.derived_from, &c.s_derived_from, &c.cp_derived_from)),
-        )
-        .chain(
-            t.rings()
-                .iter()
-                .map(|r| (&r.derived_from, &r.s_derived_from, &r.cp_derived_from)),
-        );
-    let mut derived: HashSet<String> = HashSet::new();
-    let mut s_derived: HashSet<String> = HashSet::new();
-    let mut cp_derived: HashSet<String> = HashSet::new();
-    for (all, s_only, cp_only) in provenance {
-        derived.extend(all.iter().flat_map(|d| cas_numbers(d)));
-        s_derived.extend(s_only.iter().flat_map(|d| cas_numbers(d)));
-        cp_derived.extend(cp_only.iter().flat_map(|d| cas_numbers(d)));
-    }
+    let derived = t.derived_cas(Property::Hf);
+    let s_derived = t.derived_cas(Property::S);
+    let cp_derived = t.derived_cas(Property::Cp);
 
     let table = Table::read("thermo_reference.tsv");
     let col = |n: &str| table.column(n);

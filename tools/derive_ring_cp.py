@@ -17,15 +17,15 @@ not inside the range, or if a term lacks Cp.
 
 An entry without `s` gets one the same way from the parent's TRC S298 (coefficients and entropy
 constant J), minus the groups' S and R ln(n/sigma) with the tool's own symmetry numbers, so the
-value follows the flat-graph convention and the entry loses `parent_symmetry`; it gets
-`s_derived_from`.
+value follows the flat-graph convention and the entry loses `parent_symmetry`; `s` is added to
+the parent's `properties` in `derived_from` (tools/provenance.py).
 
-An entry without `derived_from` gets `cp_derived_from = "parent, CAS"`: only its heat capacity
-comes from the parent, which stays an independent check of the published hf and s (the
-validation test leaves it out of the Cp statistics only).
+The same goes for `cp`: the parent's `derived_from` table lists it, and the parent stays an
+independent check of any property not listed (for an entry whose published hf and s are Benson's,
+the validation test leaves the parent out of the Cp statistics only).
 
     python3 tools/derive_ring_cp.py            # report only
-    python3 tools/derive_ring_cp.py --write    # also insert cp, unc_cp, cp_derived_from, source text
+    python3 tools/derive_ring_cp.py --write    # also insert cp, unc_cp, derived_from, source text
 """
 import json
 import math
@@ -39,13 +39,16 @@ import chemicals
 from chemicals.heat_capacity import TRC_gas_data, TRCCp, TRCCp_integral_over_T
 from chemicals.identifiers import search_chemical
 
+sys.path.insert(0, str(Path(__file__).resolve().parent))
+import provenance  # noqa: E402
+
 ROOT = Path(__file__).resolve().parent.parent
 FILES = ["rings-carbocyclic.toml", "rings-heterocyclic.toml", "rings-polycyclic.toml"]
 TEMPS = [300, 400, 500, 600, 800, 1000, 1500]
 CAL = 4.184
 UNC_IN_RANGE = 1.0
 UNC_EXTRAPOLATED = 2.0
-# Parents of entries that name no derived_from: (name, CAS), checked against the package's
+# Parents of entries whose derived_from names no compound for hf: (name, CAS), checked against the package's
 # identifier table (formula) before use.
 PARENTS = {
     "cyclononane": ("cyclononane", "293-55-0"),
@@ -107,8 +110,9 @@ def estimate(smiles):
 def parent_trc_row(entry):
     """((parent name, CAS, TRC row), None) for a ring entry, or (None, reason)."""
     name = entry["name"]
-    if "derived_from" in entry:
-        pname, cas = [p.strip() for p in entry["derived_from"].rsplit(",", 1)]
+    hf_parents = [d for d in provenance.read(entry) if "hf" in d.properties]
+    if hf_parents:
+        pname, cas = hf_parents[0].name, hf_parents[0].cas
     elif name in PARENTS:
         pname, cas = PARENTS[name]
     else:
@@ -267,8 +271,21 @@ def derive_entropy(entry):
     }, None
 
 
-def write_entropy(path, name, r, has_derived):
-    """Insert s, unc_s, s_derived_from and the source text; the value follows the tool's
+def add_derived(block, source_index, r, prop):
+    """Lists `prop` for the parent in the block's derived_from line (inserted after the source
+    line when the entry has none)."""
+    di = next((i for i, l in enumerate(block) if l.startswith("derived_from = ")), None)
+    old = provenance.read(tomllib.loads(block[di])) if di is not None else []
+    line = "derived_from = " + provenance.toml_value(
+        provenance.merged(old, r["cas"], r["pname"], [prop]))
+    if di is None:
+        block.insert(source_index + 1, line)
+    else:
+        block[di] = line
+
+
+def write_entropy(path, name, r):
+    """Insert s, unc_s, the parent's provenance and the source text; the value follows the tool's
     flat-graph symmetry convention, so a `parent_symmetry` line is removed."""
     lines = path.read_text().split("\n")
     start, end = entry_span(lines, name)
@@ -286,8 +303,7 @@ def write_entropy(path, name, r, has_derived):
             f"optical isomer(s) (tools/derive_ring_cp.py); unc_s is a judgement of this file's "
             f"author")
     block[si] = block[si][:-1] + "; " + text + '"'
-    if not has_derived:
-        block.insert(si + 1, f's_derived_from = "{r["pname"]}, {r["cas"]}"')
+    add_derived(block, si, r, "s")
     ni = next((i for i, l in enumerate(block) if l.startswith("note = ")), None)
     if ni is not None:
         block[ni] = entropy_note(block[ni])
@@ -321,7 +337,7 @@ def source_text(r):
     return s
 
 
-def write(path, name, r, has_derived):
+def write(path, name, r):
     lines = path.read_text().split("\n")
     start, end = entry_span(lines, name)
     block = lines[start:end]
@@ -333,8 +349,7 @@ def write(path, name, r, has_derived):
     si = next(i for i, l in enumerate(block) if l.startswith("source = "))
     assert block[si].endswith('"')
     block[si] = block[si][:-1] + "; " + source_text(r) + '"'
-    if not has_derived:
-        block.insert(si + 1, f'cp_derived_from = "{r["pname"]}, {r["cas"]}"')
+    add_derived(block, si, r, "cp")
     ni = next((i for i, l in enumerate(block) if l.startswith("note = ")), None)
     if ni is not None:
         note = re.sub(r'(?:[.;] )?cp (?:not recalled|left out).*"$', '"', block[ni])
@@ -361,7 +376,7 @@ def main():
         print(f"{fname}: {e['name']}: s {r['ring']:.2f} cal/(mol K) from {r['pname']} "
               f"{r['cas']} (TRC S298 {r['s_parent']:.2f} J/(mol K), sigma {r['sigma']})")
         if do_write:
-            write_entropy(path, e["name"], r, "derived_from" in e)
+            write_entropy(path, e["name"], r)
     for fname, path, e in entries_lacking("cp"):
         r, why = derive(e)
         if r is None:
@@ -374,7 +389,7 @@ def main():
         print("   groups  " + " ".join(f"{v:7.2f}" for v in r["groups_cal"]))
         print("   ring    " + " ".join(f"{v:7.2f}" for v in r["ring"]))
         if do_write:
-            write(path, e["name"], r, "derived_from" in e)
+            write(path, e["name"], r)
 
 
 if __name__ == "__main__":

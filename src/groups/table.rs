@@ -1,6 +1,7 @@
 //! Group tables: loads group-tables/*.toml (values, uncertainties, sources) and validates them.
 //!
-//! The format is described in group-tables/README.md. Values are converted to SI on load
+//! The format is described in group-tables/README.md; the files are read by the data layer
+//! ([`crate::data::group_file`]). Values are converted to SI on load
 //! (kJ/mol and J/(mol K), 1 cal = 4.184 J); every entry keeps its source text and the file it came
 //! from. Files are read in name order; an entry whose key (or name) was already loaded from an
 //! earlier file, or from the bundled tables when a user directory is added, replaces the earlier
@@ -16,19 +17,19 @@
 //! }
 //! ```
 
-mod error;
-mod file;
 #[cfg(test)]
 mod tests;
 
-use std::collections::BTreeMap;
+use std::collections::{BTreeMap, BTreeSet};
 use std::path::{Path, PathBuf};
 
+use crate::data::document::{read_file, toml_files_in, Source};
+use crate::data::group_file::parse_group_file;
+use crate::data::{bundled, DataError, EntryPlace, Place, Problem, Property, Provenance};
 use crate::groups::GroupKey;
 
-pub use error::{EntryKind, EntryPlace, TableError};
-
-include!(concat!(env!("OUT_DIR"), "/bundled_group_tables.rs"));
+/// Errors of the group tables: the data layer's one error type.
+pub type TableError = DataError;
 
 /// Temperatures (K) of every heat-capacity array held in memory.
 pub const CP_TEMPERATURES_K: [f64; 7] = [300.0, 400.0, 500.0, 600.0, 800.0, 1000.0, 1500.0];
@@ -124,14 +125,8 @@ pub struct GroupEntry {
     pub source: String,
     /// The group this one is taken equal to by convention, if it is such an entry.
     pub same_as: Option<GroupKey>,
-    /// The measured compound the value was derived from (`name, CAS`), if any.
-    pub derived_from: Option<String>,
-    /// The measured compound only the entropy was derived from (`name, CAS`), if any; it stays
-    /// an independent check of `hf` and `cp`.
-    pub s_derived_from: Option<String>,
-    /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
-    /// stays an independent check of `hf` and `s`.
-    pub cp_derived_from: Option<String>,
+    /// The measured compounds values were derived from, per property (`derived_from`).
+    pub provenance: Provenance,
     /// Where the entry was read.
     pub origin: EntryOrigin,
 }
@@ -147,14 +142,8 @@ pub struct CorrectionEntry {
     pub counting: String,
     /// Where the values come from.
     pub source: String,
-    /// The measured compound the value was derived from, if any.
-    pub derived_from: Option<String>,
-    /// The measured compound only the entropy was derived from (`name, CAS`), if any; it stays
-    /// an independent check of `hf` and `cp`.
-    pub s_derived_from: Option<String>,
-    /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
-    /// stays an independent check of `hf` and `s`.
-    pub cp_derived_from: Option<String>,
+    /// The measured compounds values were derived from, per property (`derived_from`).
+    pub provenance: Provenance,
     /// Where the entry was read.
     pub origin: EntryOrigin,
 }
@@ -170,14 +159,8 @@ pub struct RingEntry {
     pub values: ThermoIncrement,
     /// Where the values come from.
     pub source: String,
-    /// The measured compound the value was derived from, if any.
-    pub derived_from: Option<String>,
-    /// The measured compound only the entropy was derived from (`name, CAS`), if any; it stays
-    /// an independent check of `hf` and `cp`.
-    pub s_derived_from: Option<String>,
-    /// The measured compound only the heat capacity was derived from (`name, CAS`), if any; it
-    /// stays an independent check of `hf` and `s`.
-    pub cp_derived_from: Option<String>,
+    /// The measured compounds values were derived from, per property (`derived_from`).
+    pub provenance: Provenance,
     /// The symmetry number of the parent molecule that the entropy value assumed (Benson's
     /// tables use the real point group: cyclohexane chair 6). `None`: the value already follows
     /// the tool's flat-graph convention. The estimate converts between the two.
@@ -199,8 +182,11 @@ impl GroupTables {
     /// The tables shipped with ringheat (the repo's group-tables/*.toml, embedded at build time).
     pub fn bundled() -> Result<GroupTables, TableError> {
         let mut tables = GroupTables::default();
-        for (label, text) in BUNDLED_TABLE_FILES {
-            tables.merge_file(Path::new(label), text)?;
+        for (label, text) in bundled::GROUP_TABLE_FILES {
+            tables.merge_file(Source {
+                path: Path::new(label),
+                text,
+            })?;
         }
         tables.resolve_same_as()?;
         Ok(tables)
@@ -215,11 +201,11 @@ impl GroupTables {
     /// key or name are added, entries with a known one replace the earlier entry.
     pub fn with_extra_dir(mut self, dir: &Path) -> Result<GroupTables, TableError> {
         for path in toml_files_in(dir)? {
-            let text = std::fs::read_to_string(&path).map_err(|e| TableError::Io {
-                path: path.clone(),
-                error: e,
+            let text = read_file(&path)?;
+            self.merge_file(Source {
+                path: &path,
+                text: &text,
             })?;
-            self.merge_file(&path, &text)?;
         }
         self.resolve_same_as()?;
         Ok(self)
@@ -255,15 +241,44 @@ impl GroupTables {
         self.corrections.iter()
     }
 
+    /// Every entry that names measured compounds it was derived from: its label (`group
+    /// C-(C)(H)3`, `correction gauche-(O)`, `ring oxirane`) and its provenance.
+    pub fn provenances(&self) -> impl Iterator<Item = (String, &Provenance)> + '_ {
+        let groups = self
+            .groups
+            .values()
+            .map(|g| (format!("group {}", g.key), &g.provenance));
+        let corrections = self
+            .corrections
+            .iter()
+            .map(|c| (format!("correction {}", c.name), &c.provenance));
+        let rings = self
+            .rings
+            .iter()
+            .map(|r| (format!("ring {}", r.name), &r.provenance));
+        groups
+            .chain(corrections)
+            .chain(rings)
+            .filter(|(_, p)| !p.is_empty())
+    }
+
+    /// CAS numbers of the compounds that `property` of some entry was derived from: those
+    /// compounds are no independent check of that property.
+    pub fn derived_cas(&self, property: Property) -> BTreeSet<String> {
+        self.provenances()
+            .flat_map(|(_, p)| p.cas_for(property).map(str::to_string).collect::<Vec<_>>())
+            .collect()
+    }
+
     /// The files read, in the order they were read.
     pub fn files(&self) -> &[PathBuf] {
         &self.files
     }
 
     /// Parses one file and merges its entries (replacing earlier entries of the same key/name).
-    fn merge_file(&mut self, path: &Path, text: &str) -> Result<(), TableError> {
-        let parsed = file::parse_file(path, text)?;
-        self.files.push(path.to_path_buf());
+    fn merge_file(&mut self, source: Source<'_>) -> Result<(), TableError> {
+        let parsed = parse_group_file(source)?;
+        self.files.push(source.path.to_path_buf());
         for mut entry in parsed.groups {
             if let Some(old) = self.groups.get(&entry.key) {
                 entry.origin.replaced = Some(old.origin.file.clone());
@@ -304,21 +319,20 @@ impl GroupTables {
             let mut chain = vec![entry.key.clone()];
             let mut target = first;
             loop {
-                let place = || EntryPlace::group(&entry.key.to_string(), entry.origin.line);
+                let fail = |problem| {
+                    let place = EntryPlace::group(&entry.key.to_string(), entry.origin.line);
+                    DataError::new(Place::entry(&entry.origin.file, place), problem)
+                };
                 if chain.contains(target) {
                     chain.push(target.clone());
-                    return Err(TableError::SameAsCycle {
-                        path: entry.origin.file.clone(),
-                        place: place(),
+                    return Err(fail(Problem::SameAsCycle {
                         cycle: chain.iter().map(|k| k.to_string()).collect(),
-                    });
+                    }));
                 }
                 let Some(next) = self.groups.get(target) else {
-                    return Err(TableError::SameAsMissing {
-                        path: entry.origin.file.clone(),
-                        place: place(),
+                    return Err(fail(Problem::SameAsMissing {
                         target: target.to_string(),
-                    });
+                    }));
                 };
                 chain.push(target.clone());
                 match &next.same_as {
@@ -337,21 +351,4 @@ impl GroupTables {
         }
         Ok(())
     }
-}
-
-/// The `*.toml` files directly inside `dir`, sorted by file name.
-fn toml_files_in(dir: &Path) -> Result<Vec<PathBuf>, TableError> {
-    let io_error = |e| TableError::Io {
-        path: dir.to_path_buf(),
-        error: e,
-    };
-    let mut files = Vec::new();
-    for item in std::fs::read_dir(dir).map_err(io_error)? {
-        let path = item.map_err(io_error)?.path();
-        if path.is_file() && path.extension().is_some_and(|x| x == "toml") {
-            files.push(path);
-        }
-    }
-    files.sort();
-    Ok(files)
 }

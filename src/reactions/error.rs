@@ -1,6 +1,5 @@
-//! Errors of the reaction layer: building a CBH reaction, pricing it, loading reference species.
-
-use std::path::PathBuf;
+//! Errors of the reaction layer: building a CBH reaction and pricing it (reference-species files
+//! report through the data layer's error, [`crate::data::DataError`]).
 
 use super::cbh::Rung;
 
@@ -68,48 +67,5 @@ pub enum ReactionError {
     MissingHeat {
         /// Canonical SMILES of the species.
         smiles: String,
-    },
-}
-
-/// Why the reference-species table could not be read.
-#[derive(Debug, Clone, PartialEq, thiserror::Error)]
-pub enum ReferenceError {
-    /// The file could not be read.
-    #[error("{}: cannot read: {message}", .path.display())]
-    Io {
-        /// The file.
-        path: PathBuf,
-        /// The system's message.
-        message: String,
-    },
-    /// TOML syntax or a field of the wrong type.
-    #[error("{}: {message}", .path.display())]
-    Syntax {
-        /// The file.
-        path: PathBuf,
-        /// The parser's message (with line and column when it gives them).
-        message: String,
-    },
-    /// An entry is incomplete or wrong.
-    #[error("{}: entry {entry} ({smiles}): {problem}", .path.display())]
-    Entry {
-        /// The file.
-        path: PathBuf,
-        /// 1-based position of the entry in the file.
-        entry: usize,
-        /// The SMILES as written.
-        smiles: String,
-        /// What is wrong.
-        problem: String,
-    },
-    /// Two entries (possibly in two files) describe the same structure.
-    #[error("{key}: the reference table holds it twice: {first} and {second}")]
-    Duplicate {
-        /// Canonical SMILES.
-        key: String,
-        /// The first entry (name, SMILES, file).
-        first: String,
-        /// The second entry.
-        second: String,
     },
 }

@@ -30,11 +30,12 @@ mod units;
 pub mod validity;
 
 pub use cbh::{build_hierarchy, build_reaction, Rung};
-pub use error::{ReactionError, ReferenceError};
+pub use error::ReactionError;
 pub use fragment::Species;
 pub use heat::{strain_from_reaction, ReactionHeat, SourceTag, SpeciesHeat, StrainEstimate};
 pub use reaction::Reaction;
 pub use reference::{
-    group_additivity_fallback, lookup_with_fallback, ReferenceSpecies, ReferenceTable,
+    group_additivity_fallback, lookup_with_fallback, ReferenceError, ReferenceSpecies,
+    ReferenceTable,
 };
 pub use validity::{abnormal_species, molecule_problem};

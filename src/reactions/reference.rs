@@ -26,37 +26,23 @@
 //! ```
 
 use std::collections::BTreeMap;
-use std::path::{Path, PathBuf};
+use std::path::Path;
 
-use serde::Deserialize;
-
-use super::error::ReferenceError;
 use super::fragment::Species;
 use super::heat::SourceTag;
+use crate::data::document::{read_file, Source};
+use crate::data::reference_file::{parse_species_file, SpeciesRecord};
+use crate::data::{bundled, DataError, Place, Problem};
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::parse_smiles;
 use crate::molecule::PerceivedMolecule;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity};
 
 /// The bundled table files: (path relative to the crate root, contents).
-pub const BUNDLED_REFERENCE_FILES: [(&str, &str); 4] = [
-    (
-        "group-tables/reference/reference-species.toml",
-        include_str!("../../group-tables/reference/reference-species.toml"),
-    ),
-    (
-        "group-tables/reference/ring-species.toml",
-        include_str!("../../group-tables/reference/ring-species.toml"),
-    ),
-    (
-        "group-tables/reference/acyclic-species.toml",
-        include_str!("../../group-tables/reference/acyclic-species.toml"),
-    ),
-    (
-        "group-tables/reference/ring-species-recalled.toml",
-        include_str!("../../group-tables/reference/ring-species-recalled.toml"),
-    ),
-];
+pub const BUNDLED_REFERENCE_FILES: [(&str, &str); 4] = bundled::REFERENCE_FILES;
+
+/// Errors of the reference table: the data layer's one error type.
+pub type ReferenceError = DataError;
 
 /// One reference species.
 #[derive(Debug, Clone, PartialEq, serde::Serialize)]
@@ -77,35 +63,14 @@ pub struct ReferenceSpecies {
     pub note: Option<String>,
     /// The file the entry was read from.
     pub file: String,
+    /// 1-based line of the entry in that file.
+    pub line: Option<usize>,
 }
 
 /// Reference species by canonical SMILES.
 #[derive(Debug, Clone, Default)]
 pub struct ReferenceTable {
     entries: BTreeMap<String, ReferenceSpecies>,
-}
-
-#[derive(Deserialize)]
-#[serde(deny_unknown_fields)]
-struct RawFile {
-    /// Free description of the file (title, generator, package versions).
-    #[allow(dead_code)]
-    meta: Option<toml::Table>,
-    #[serde(default)]
-    species: Vec<RawSpecies>,
-}
-
-#[derive(Deserialize)]
-#[serde(deny_unknown_fields)]
-struct RawSpecies {
-    smiles: Option<String>,
-    name: Option<String>,
-    cas: Option<String>,
-    hf298_kj: Option<f64>,
-    unc_kj: Option<f64>,
-    source: Option<String>,
-    /// Free text for the reader of the file.
-    note: Option<String>,
 }
 
 impl ReferenceTable {
@@ -118,15 +83,12 @@ impl ReferenceTable {
         Ok(table)
     }
 
-    /// Adds the entries of `other`; a structure both tables hold is an error naming both entries.
+    /// Adds the entries of `other`; a structure both tables hold is an error at the second
+    /// entry that names the first.
     pub fn extend(&mut self, other: ReferenceTable) -> Result<(), ReferenceError> {
         for (key, entry) in other.entries {
             if let Some(first) = self.entries.get(&key) {
-                return Err(ReferenceError::Duplicate {
-                    key,
-                    first: format!("{} ({}, {})", first.name, first.smiles, first.file),
-                    second: format!("{} ({}, {})", entry.name, entry.smiles, entry.file),
-                });
+                return Err(duplicate(first, &entry));
             }
             self.entries.insert(key, entry);
         }
@@ -135,40 +97,23 @@ impl ReferenceTable {
 
     /// Reads a table file.
     pub fn from_path(path: &Path) -> Result<ReferenceTable, ReferenceError> {
-        let text = std::fs::read_to_string(path).map_err(|e| ReferenceError::Io {
-            path: path.to_path_buf(),
-            message: e.to_string(),
-        })?;
+        let text = read_file(path)?;
         ReferenceTable::from_toml(&text, path)
     }
 
     /// Parses table text; `path` only labels errors. Every entry needs `smiles`, `name`,
-    /// `hf298_kj`, `unc_kj` (finite, not negative) and `source`; two entries with the same
-    /// canonical SMILES are an error.
+    /// `hf298_kj`, `unc_kj` (finite, not negative) and `source`, and a SMILES that parses; two
+    /// entries with the same canonical SMILES are an error.
     pub fn from_toml(text: &str, path: &Path) -> Result<ReferenceTable, ReferenceError> {
-        let raw: RawFile = toml::from_str(text).map_err(|e| ReferenceError::Syntax {
-            path: path.to_path_buf(),
-            message: e.to_string().trim().to_string(),
-        })?;
-        let mut entries = BTreeMap::new();
-        for (index, r) in raw.species.into_iter().enumerate() {
-            let entry = index + 1;
-            let smiles = r.smiles.clone().unwrap_or_default();
-            let fail = |problem: String| ReferenceError::Entry {
-                path: PathBuf::from(path),
-                entry,
-                smiles: smiles.clone(),
-                problem,
-            };
-            let item = read_entry(r, path).map_err(&fail)?;
-            if let Some(first) = entries.insert(item.key.clone(), item) {
-                return Err(fail(format!(
-                    "same structure as the entry for {} ({})",
-                    first.name, first.smiles
-                )));
+        let mut table = ReferenceTable::default();
+        for record in parse_species_file(Source { path, text })? {
+            let item = read_entry(record, path)?;
+            if let Some(first) = table.entries.get(&item.key) {
+                return Err(duplicate(first, &item));
             }
+            table.entries.insert(item.key.clone(), item);
         }
-        Ok(ReferenceTable { entries })
+        Ok(table)
     }
 
     /// The entry for a canonical SMILES.
@@ -202,27 +147,49 @@ impl ReferenceTable {
     }
 }
 
-fn read_entry(r: RawSpecies, path: &Path) -> Result<ReferenceSpecies, String> {
-    let smiles = r.smiles.ok_or("no smiles")?;
-    let name = r.name.ok_or("no name")?;
-    let source = r.source.ok_or("no source")?;
-    let value = r.hf298_kj.ok_or("no hf298_kj")?;
-    let uncertainty = r.unc_kj.ok_or("no unc_kj")?;
-    if !value.is_finite() || !uncertainty.is_finite() || uncertainty < 0.0 {
-        return Err(format!(
-            "hf298_kj {value} and unc_kj {uncertainty} must be finite, unc_kj not negative"
-        ));
-    }
-    let mol = parse_smiles(&smiles).map_err(|e| format!("SMILES not readable: {e}"))?;
+/// The error for a structure held twice: at the second entry, naming the first.
+fn duplicate(first: &ReferenceSpecies, second: &ReferenceSpecies) -> DataError {
+    let place = Place {
+        file: second.file.clone().into(),
+        line: second.line,
+        column: None,
+        entry: Some(crate::data::EntryPlace::new(
+            crate::data::EntryKind::Species,
+            second.smiles.clone(),
+            second.line,
+        )),
+    };
+    let at = first.line.map_or(String::new(), |l| format!(":{l}"));
+    DataError::new(
+        place,
+        Problem::Duplicate {
+            first: format!(
+                "{}{at}, {} ({}); both are {}",
+                first.file, first.name, first.smiles, first.key
+            ),
+        },
+    )
+}
+
+/// The table entry of a checked record: its SMILES parsed and canonicalized.
+fn read_entry(r: SpeciesRecord, path: &Path) -> Result<ReferenceSpecies, DataError> {
+    let mol = parse_smiles(&r.smiles).map_err(|e| {
+        DataError::at_entry(
+            path,
+            &r.place,
+            Problem::Entry(format!("SMILES not readable: {e}")),
+        )
+    })?;
     Ok(ReferenceSpecies {
         key: canonical_smiles(&mol),
-        smiles,
-        name,
-        cas: r.cas,
-        hf298_kj: Quantity::new(value, uncertainty),
-        source,
+        smiles: r.smiles,
+        name: r.name,
+        cas: r.cas.map(|c| c.as_str().to_string()),
+        hf298_kj: r.hf298_kj,
+        source: r.source,
         note: r.note,
         file: path.display().to_string(),
+        line: r.place.line,
     })
 }
 

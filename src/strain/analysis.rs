@@ -1,15 +1,15 @@
 //! One molecule's strain by every scheme, with the spread between them.
 
 use super::flags::StrainFlag;
-use super::increments::{IncrementError, IncrementSet};
+use super::increments::IncrementSet;
 use super::systems::{ring_correction_sum, ring_system_strain, RingSystemStrain};
 use super::target::{resolve_target_hf, TargetHf};
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::formula::Formula;
 use crate::molecule::{Molecule, PerceivedMolecule};
 use crate::reactions::{
-    build_reaction, group_additivity_fallback, lookup_with_fallback, ReactionHeat, ReferenceError,
-    ReferenceTable, Rung, SourceTag,
+    build_reaction, group_additivity_fallback, lookup_with_fallback, ReactionHeat, ReferenceTable,
+    Rung, SourceTag,
 };
 use crate::thermo::estimate::SetupError;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Property, Quantity, ThermoEstimate};
@@ -34,12 +34,9 @@ pub enum DataError {
     /// Group tables.
     #[error(transparent)]
     Groups(#[from] SetupError),
-    /// Reference table.
+    /// Reference table or increment sets.
     #[error(transparent)]
-    References(#[from] ReferenceError),
-    /// Increment sets.
-    #[error(transparent)]
-    Increments(#[from] IncrementError),
+    Files(#[from] crate::data::DataError),
 }
 
 impl StrainData {

@@ -15,19 +15,15 @@
 
 use std::path::Path;
 
-use serde::Deserialize;
-
+use crate::data::document::Source;
+use crate::data::increments_file::parse_increments_file;
+use crate::data::{bundled, DataError};
 use crate::molecule::{BondOrder, Element, Molecule};
 use crate::thermo::Quantity;
 use crate::units::JOULES_PER_CALORIE;
 
 /// Path label of the bundled file (relative to the crate root).
-pub const BUNDLED_INCREMENTS_PATH: &str = "group-tables/reference/strain-free-increments.toml";
-
-const BUNDLED_TEXT: &str = include_str!("../../group-tables/reference/strain-free-increments.toml");
-
-/// The four saturated carbon centres, by number of carbon neighbours (1 to 4).
-const CENTRES: [&str; 4] = ["C-(C)(H)3", "C-(C)2(H)2", "C-(C)3(H)", "C-(C)4"];
+pub const BUNDLED_INCREMENTS_PATH: &str = bundled::INCREMENTS_FILE.0;
 
 /// A published set of strain-free increments for saturated hydrocarbons.
 #[derive(Debug, Clone, serde::Serialize)]
@@ -44,98 +40,33 @@ pub struct IncrementSet {
     pub increments_kj: [Quantity; 4],
 }
 
-/// Why the increment file could not be read.
-#[derive(Debug, Clone, PartialEq, thiserror::Error)]
-#[error("{file}: {problem}")]
-pub struct IncrementError {
-    /// The file.
-    pub file: String,
-    /// What is wrong (with the set's name when known).
-    pub problem: String,
-}
-
-#[derive(Deserialize)]
-#[serde(deny_unknown_fields)]
-struct RawFile {
-    #[allow(dead_code)]
-    meta: Option<toml::Table>,
-    #[serde(default)]
-    set: Vec<RawSet>,
-}
-
-#[derive(Deserialize)]
-#[serde(deny_unknown_fields)]
-struct RawSet {
-    name: String,
-    source: String,
-    applies_to: String,
-    note: String,
-    increment: Vec<RawIncrement>,
-}
-
-#[derive(Deserialize)]
-#[serde(deny_unknown_fields)]
-struct RawIncrement {
-    group: String,
-    hf: f64,
-    unc_hf: f64,
-}
+/// Errors of the increment file: the data layer's one error type.
+pub type IncrementError = DataError;
 
 impl IncrementSet {
     /// The bundled sets.
     pub fn bundled() -> Result<Vec<IncrementSet>, IncrementError> {
-        IncrementSet::from_toml(BUNDLED_TEXT, Path::new(BUNDLED_INCREMENTS_PATH))
+        IncrementSet::from_toml(
+            bundled::INCREMENTS_FILE.1,
+            Path::new(BUNDLED_INCREMENTS_PATH),
+        )
     }
 
-    /// Parses a file of sets (values in kcal/mol); `path` labels errors. Every set needs all
-    /// four centres, each once, with finite values and a non-negative uncertainty.
+    /// Parses a file of sets (`[meta] energy_unit` kcal/mol or kJ/mol); `path` labels errors.
+    /// Every set needs all four centres, each once, with finite values and a non-negative
+    /// uncertainty.
     pub fn from_toml(text: &str, path: &Path) -> Result<Vec<IncrementSet>, IncrementError> {
-        let fail = |problem: String| IncrementError {
-            file: path.display().to_string(),
-            problem,
-        };
-        let raw: RawFile = toml::from_str(text).map_err(|e| fail(e.to_string()))?;
-        let mut sets = Vec::new();
-        for s in raw.set {
-            let mut values: [Option<Quantity>; 4] = [None; 4];
-            for inc in &s.increment {
-                let Some(i) = CENTRES.iter().position(|c| *c == inc.group) else {
-                    return Err(fail(format!(
-                        "set \"{}\": group {} is not a saturated carbon centre ({})",
-                        s.name,
-                        inc.group,
-                        CENTRES.join(", ")
-                    )));
-                };
-                if !inc.hf.is_finite() || !inc.unc_hf.is_finite() || inc.unc_hf < 0.0 {
-                    return Err(fail(format!(
-                        "set \"{}\": {}: hf and unc_hf must be finite, unc_hf not negative",
-                        s.name, inc.group
-                    )));
-                }
-                if values[i].is_some() {
-                    return Err(fail(format!("set \"{}\": {} twice", s.name, inc.group)));
-                }
-                values[i] = Some(Quantity::new(inc.hf, inc.unc_hf).scaled(JOULES_PER_CALORIE));
-            }
-            let mut increments_kj = [Quantity::new(0.0, 0.0); 4];
-            for (i, v) in values.iter().enumerate() {
-                increments_kj[i] = v.ok_or_else(|| {
-                    fail(format!(
-                        "set \"{}\": no increment for {}",
-                        s.name, CENTRES[i]
-                    ))
-                })?;
-            }
-            sets.push(IncrementSet {
-                name: s.name,
-                source: s.source,
-                applies_to: s.applies_to,
-                note: s.note,
-                increments_kj,
-            });
-        }
-        Ok(sets)
+        let records = parse_increments_file(Source { path, text })?;
+        Ok(records
+            .into_iter()
+            .map(|r| IncrementSet {
+                name: r.name,
+                source: r.source,
+                applies_to: r.applies_to,
+                note: r.note,
+                increments_kj: r.increments_kj,
+            })
+            .collect())
     }
 
     /// The strain-free sum of `mol` in kJ/mol, or why the set does not apply (not a saturated

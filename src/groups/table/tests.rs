@@ -78,7 +78,7 @@ fn malformed_toml_names_file_and_line() {
     let err = result.unwrap_err();
     let msg = err.to_string();
     assert!(
-        matches!(err, TableError::Syntax { line: Some(9), .. }),
+        matches!(err.problem, Problem::Syntax(_)) && err.place.line == Some(9),
         "{msg}"
     );
     assert!(
@@ -97,9 +97,9 @@ fn entry_without_source_names_file_and_key() {
     let (dir, result) = load_one(&text);
     let err = result.unwrap_err();
     let msg = err.to_string();
-    assert!(matches!(err, TableError::NoSource { .. }), "{msg}");
+    assert!(matches!(err.problem, Problem::NoSource), "{msg}");
     let expected = format!(
-        "{}: group \"C-(C)(H)3\" (line 7): no source",
+        "{}:7: group \"C-(C)(H)3\": no source",
         dir.path().join("t.toml").display()
     );
     assert_eq!(msg, expected);
@@ -151,10 +151,7 @@ fn bad_key_duplicate_and_unknown_field_are_rejected() {
         METHYL.replace("C-(C)(H)3", "C-(H)3(C)")
     );
     let msg = error_text(&twice);
-    assert!(
-        msg.contains("defined twice in this file (first at line 7)"),
-        "{msg}"
-    );
+    assert!(msg.contains("defined twice (first at line 7)"), "{msg}");
     let msg = error_text(&format!("{META_KCAL}{}", METHYL.replace("unc_s", "unc_S")));
     assert!(msg.contains("unc_S"), "{msg}");
 }
@@ -315,9 +312,9 @@ fn bundled_tables_load() {
 }
 
 #[test]
-fn provenance_fields_are_kept_apart() {
+fn typed_provenance_is_read_per_property() {
     let text = format!(
-        "{META_KCAL}{}derived_from = \"test compound, 1-23-4\"\ns_derived_from = \"a compound, 9-10-1\"\ncp_derived_from = \"other compound, 5-67-8\"\n",
+        "{META_KCAL}{}derived_from = [{{ cas = \"71-43-2\", name = \"benzene\", properties = [\"hf\"] }}, {{ cas = \"7732-18-5\", name = \"water\", properties = [\"s\", \"cp\"] }}]\n",
         METHYL
     );
     let (_dir, result) = load_one(&text);
@@ -325,10 +322,43 @@ fn provenance_fields_are_kept_apart() {
     let entry = tables
         .group(&GroupKey::parse("C-(C)(H)3").unwrap())
         .unwrap();
-    assert_eq!(entry.derived_from.as_deref(), Some("test compound, 1-23-4"));
-    assert_eq!(entry.s_derived_from.as_deref(), Some("a compound, 9-10-1"));
-    assert_eq!(
-        entry.cp_derived_from.as_deref(),
-        Some("other compound, 5-67-8")
+    let p = &entry.provenance;
+    assert_eq!(p.cas_for(Property::Hf).collect::<Vec<_>>(), ["71-43-2"]);
+    assert_eq!(p.cas_for(Property::Cp).collect::<Vec<_>>(), ["7732-18-5"]);
+    assert!(tables.derived_cas(Property::S).contains("7732-18-5"));
+    assert_eq!(tables.provenances().count(), 1);
+}
+
+#[test]
+fn bad_provenance_is_refused_at_its_entry() {
+    let cases = [
+        ("derived_from = \"benzene, 71-43-2\"\n", "old prose form"),
+        (
+            "s_derived_from = \"benzene, 71-43-2\"\n",
+            "`s_derived_from` is replaced by derived_from",
+        ),
+        (
+            "derived_from = { cas = \"71-43-3\", name = \"benzene\", properties = [\"hf\"] }\n",
+            "check digit",
+        ),
+    ];
+    for (line, expected) in cases {
+        let msg = error_text(&format!("{META_KCAL}{METHYL}{line}"));
+        assert!(msg.contains(expected), "{msg}");
+        assert!(
+            msg.contains(":7: group \"C-(C)(H)3\": derived_from"),
+            "{msg}"
+        );
+    }
+    // A property the entry does not give cannot have been derived.
+    let no_cp = METHYL
+        .replace("cp = [6.0, 8.0, 9.0, 10.0, 12.0, 14.0, 17.0]\n", "")
+        .replace("unc_cp = 0.3\n", "");
+    let msg = error_text(&format!(
+        "{META_KCAL}{no_cp}derived_from = {{ cas = \"71-43-2\", name = \"benzene\", properties = [\"cp\"] }}\n"
+    ));
+    assert!(
+        msg.contains("lists `cp`, which this entry does not give"),
+        "{msg}"
     );
 }

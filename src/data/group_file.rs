@@ -1,4 +1,5 @@
-//! One group-table file: TOML text to validated entries in SI units.
+//! One group-table file (group-tables/*.toml or a user's): TOML text to validated entries in SI
+//! units, each with its provenance and place.
 
 use std::collections::HashMap;
 use std::path::Path;
@@ -6,8 +7,10 @@ use std::path::Path;
 use serde::Deserialize;
 use toml::Spanned;
 
-use super::error::{EntryKind, EntryPlace, TableError};
-use super::{
+use super::document::Source;
+use super::error::{DataError, EntryKind, EntryPlace, Place, Problem};
+use super::provenance::{Property, Provenance};
+use crate::groups::table::{
     CorrectionEntry, EntryOrigin, GroupEntry, KnownValues, RingEntry, ThermoIncrement,
     CP_TEMPERATURES_K, JOULES_PER_CALORIE,
 };
@@ -15,9 +18,12 @@ use crate::groups::GroupKey;
 
 /// The entries of one file, in file order.
 #[derive(Debug, Default)]
-pub(super) struct ParsedFile {
+pub struct GroupFile {
+    /// `[[group]]` entries (`same_as` not yet resolved).
     pub groups: Vec<GroupEntry>,
+    /// `[[correction]]` entries.
     pub corrections: Vec<CorrectionEntry>,
+    /// `[[ring]]` entries.
     pub rings: Vec<RingEntry>,
 }
 
@@ -57,9 +63,11 @@ struct RawEntry {
     unc_cp: Option<f64>,
     source: Option<String>,
     same_as: Option<String>,
-    derived_from: Option<String>,
-    s_derived_from: Option<String>,
-    cp_derived_from: Option<String>,
+    /// Typed provenance (see [`Provenance`]).
+    derived_from: Option<toml::Value>,
+    /// The old per-property fields, read only to say what replaces them.
+    s_derived_from: Option<toml::Value>,
+    cp_derived_from: Option<toml::Value>,
     /// Ring entries: the symmetry number of the parent that the entropy value assumed.
     parent_symmetry: Option<u64>,
     /// Free text for the reader of the file; not used by the code.
@@ -74,25 +82,12 @@ struct Units {
     cp_temperatures: Vec<f64>,
 }
 
-/// Parses and validates one file; `path` is only used in errors and origins.
-pub(super) fn parse_file(path: &Path, text: &str) -> Result<ParsedFile, TableError> {
-    let raw: RawFile = toml::from_str(text).map_err(|e| {
-        let (line, column) = match e.span() {
-            Some(span) => {
-                let (l, c) = line_and_column(text, span.start);
-                (Some(l), Some(c))
-            }
-            None => (None, None),
-        };
-        TableError::Syntax {
-            path: path.to_path_buf(),
-            line,
-            column,
-            message: e.message().trim().to_string(),
-        }
-    })?;
+/// Parses and validates one file; `source.path` is only used in errors and origins.
+pub fn parse_group_file(source: Source<'_>) -> Result<GroupFile, DataError> {
+    let path = source.path;
+    let raw: RawFile = source.parse()?;
     let units = read_meta(path, raw.meta)?;
-    let mut out = ParsedFile::default();
+    let mut out = GroupFile::default();
     let mut seen: HashMap<String, usize> = HashMap::new();
     let lists = [
         (EntryKind::Group, raw.group),
@@ -101,7 +96,7 @@ pub(super) fn parse_file(path: &Path, text: &str) -> Result<ParsedFile, TableErr
     ];
     for (kind, list) in lists {
         for (index, spanned) in list.into_iter().enumerate() {
-            let line = line_and_column(text, spanned.span().start).0;
+            let line = source.line_of(spanned.span().start);
             let entry = spanned.into_inner();
             let ctx = Ctx {
                 path,
@@ -123,7 +118,7 @@ pub(super) fn parse_file(path: &Path, text: &str) -> Result<ParsedFile, TableErr
                     out.corrections.push(item);
                     id
                 }
-                EntryKind::Ring => {
+                _ => {
                     let item = ctx.ring(entry)?;
                     let id = format!("ring {}", item.name);
                     out.rings.push(item);
@@ -131,11 +126,9 @@ pub(super) fn parse_file(path: &Path, text: &str) -> Result<ParsedFile, TableErr
                 }
             };
             if let Some(first_line) = seen.insert(identity, line) {
-                return Err(TableError::Duplicate {
-                    path: path.to_path_buf(),
-                    place: ctx.place,
-                    first_line,
-                });
+                return Err(ctx.fail(Problem::Duplicate {
+                    first: format!("line {first_line}"),
+                }));
             }
         }
     }
@@ -145,7 +138,7 @@ pub(super) fn parse_file(path: &Path, text: &str) -> Result<ParsedFile, TableErr
 fn place_of(kind: EntryKind, entry: &RawEntry, index: usize, line: usize) -> EntryPlace {
     let name = match kind {
         EntryKind::Group => entry.key.clone(),
-        EntryKind::Correction | EntryKind::Ring => entry.name.clone(),
+        _ => entry.name.clone(),
     };
     EntryPlace {
         kind,
@@ -154,11 +147,8 @@ fn place_of(kind: EntryKind, entry: &RawEntry, index: usize, line: usize) -> Ent
     }
 }
 
-fn read_meta(path: &Path, meta: Option<RawMeta>) -> Result<Units, TableError> {
-    let fail = |problem: String| TableError::Meta {
-        path: path.to_path_buf(),
-        problem,
-    };
+fn read_meta(path: &Path, meta: Option<RawMeta>) -> Result<Units, DataError> {
+    let fail = |problem: String| DataError::new(Place::file(path), Problem::Meta(problem));
     let meta = meta.ok_or_else(|| fail("missing; every file starts with a [meta] table".into()))?;
     let kj_per_enthalpy_unit = match meta.enthalpy_unit.as_deref() {
         Some("kcal/mol") => JOULES_PER_CALORIE,
@@ -208,12 +198,12 @@ struct Ctx<'a> {
 }
 
 impl Ctx<'_> {
-    fn problem(&self, problem: impl Into<String>) -> TableError {
-        TableError::Entry {
-            path: self.path.to_path_buf(),
-            place: self.place.clone(),
-            problem: problem.into(),
-        }
+    fn fail(&self, problem: Problem) -> DataError {
+        DataError::at_entry(self.path, &self.place, problem)
+    }
+
+    fn problem(&self, problem: impl Into<String>) -> DataError {
+        self.fail(Problem::Entry(problem.into()))
     }
 
     fn origin(&self) -> EntryOrigin {
@@ -224,27 +214,20 @@ impl Ctx<'_> {
         }
     }
 
-    fn group_key(&self, text: Option<&str>) -> Result<GroupKey, TableError> {
+    fn group_key(&self, text: Option<&str>) -> Result<GroupKey, DataError> {
         let text = text.ok_or_else(|| self.problem("no `key`"))?;
-        GroupKey::parse(text).map_err(|error| TableError::BadKey {
-            path: self.path.to_path_buf(),
-            place: self.place.clone(),
-            error,
-        })
+        GroupKey::parse(text).map_err(|error| self.fail(Problem::BadKey(error)))
     }
 
-    fn source(&self, entry: &RawEntry) -> Result<String, TableError> {
+    fn source(&self, entry: &RawEntry) -> Result<String, DataError> {
         match entry.source.as_deref().map(str::trim) {
             Some(s) if !s.is_empty() => Ok(s.to_string()),
-            _ => Err(TableError::NoSource {
-                path: self.path.to_path_buf(),
-                place: self.place.clone(),
-            }),
+            _ => Err(self.fail(Problem::NoSource)),
         }
     }
 
     /// Rejects fields that do not belong to this kind of entry.
-    fn forbid(&self, field: &str, present: bool) -> Result<(), TableError> {
+    fn forbid(&self, field: &str, present: bool) -> Result<(), DataError> {
         if present {
             return Err(self.problem(format!(
                 "`{field}` does not belong to a {} entry",
@@ -254,7 +237,7 @@ impl Ctx<'_> {
         Ok(())
     }
 
-    fn group(&self, entry: RawEntry, key: GroupKey) -> Result<GroupEntry, TableError> {
+    fn group(&self, entry: RawEntry, key: GroupKey) -> Result<GroupEntry, DataError> {
         self.forbid("name", entry.name.is_some())?;
         self.forbid("smiles", entry.smiles.is_some())?;
         self.forbid("counting", entry.counting.is_some())?;
@@ -284,19 +267,18 @@ impl Ctx<'_> {
             }
             None => (self.values(&entry)?, None),
         };
+        let provenance = self.provenance(&entry, &values)?;
         Ok(GroupEntry {
             key,
             values,
             source,
             same_as,
-            derived_from: entry.derived_from,
-            s_derived_from: entry.s_derived_from,
-            cp_derived_from: entry.cp_derived_from,
+            provenance,
             origin: self.origin(),
         })
     }
 
-    fn correction(&self, entry: RawEntry) -> Result<CorrectionEntry, TableError> {
+    fn correction(&self, entry: RawEntry) -> Result<CorrectionEntry, DataError> {
         self.forbid("key", entry.key.is_some())?;
         self.forbid("smiles", entry.smiles.is_some())?;
         self.forbid("same_as", entry.same_as.is_some())?;
@@ -307,19 +289,19 @@ impl Ctx<'_> {
             Some(c) if !c.is_empty() => c.to_string(),
             _ => return Err(self.problem("no `counting` rule")),
         };
+        let values = self.values(&entry)?;
+        let provenance = self.provenance(&entry, &values)?;
         Ok(CorrectionEntry {
             name,
-            values: self.values(&entry)?,
+            values,
             counting,
             source,
-            derived_from: entry.derived_from,
-            s_derived_from: entry.s_derived_from,
-            cp_derived_from: entry.cp_derived_from,
+            provenance,
             origin: self.origin(),
         })
     }
 
-    fn ring(&self, entry: RawEntry) -> Result<RingEntry, TableError> {
+    fn ring(&self, entry: RawEntry) -> Result<RingEntry, DataError> {
         self.forbid("key", entry.key.is_some())?;
         self.forbid("counting", entry.counting.is_some())?;
         self.forbid("same_as", entry.same_as.is_some())?;
@@ -332,20 +314,58 @@ impl Ctx<'_> {
         if entry.parent_symmetry == Some(0) {
             return Err(self.problem("`parent_symmetry` must be at least 1"));
         }
+        let values = self.values(&entry)?;
+        let provenance = self.provenance(&entry, &values)?;
         Ok(RingEntry {
             name,
             smiles,
-            values: self.values(&entry)?,
+            values,
             source,
-            derived_from: entry.derived_from,
-            s_derived_from: entry.s_derived_from,
-            cp_derived_from: entry.cp_derived_from,
+            provenance,
             parent_symmetry: entry.parent_symmetry,
             origin: self.origin(),
         })
     }
 
-    fn name(&self, entry: &RawEntry) -> Result<String, TableError> {
+    /// The typed `derived_from`; every property it lists must be one the entry gives.
+    fn provenance(
+        &self,
+        entry: &RawEntry,
+        values: &ThermoIncrement,
+    ) -> Result<Provenance, DataError> {
+        let old_fields = [
+            ("s_derived_from", entry.s_derived_from.is_some(), "s"),
+            ("cp_derived_from", entry.cp_derived_from.is_some(), "cp"),
+        ];
+        for (old, given, property) in old_fields {
+            if given {
+                return Err(self.fail(Problem::Provenance(format!(
+                    "`{old}` is replaced by derived_from = {{ cas = \"...\", name = \"...\", \
+                     properties = [\"{property}\"] }}"
+                ))));
+            }
+        }
+        let Some(value) = &entry.derived_from else {
+            return Ok(Provenance::default());
+        };
+        let provenance = Provenance::from_toml(value)
+            .map_err(|problem| self.fail(Problem::Provenance(problem)))?;
+        for property in provenance.properties() {
+            let given = match property {
+                Property::Hf => values.known.hf,
+                Property::S => values.known.s,
+                Property::Cp => values.known.cp,
+            };
+            if !given {
+                return Err(self.fail(Problem::Provenance(format!(
+                    "lists `{property}`, which this entry does not give"
+                ))));
+            }
+        }
+        Ok(provenance)
+    }
+
+    fn name(&self, entry: &RawEntry) -> Result<String, DataError> {
         match entry.name.as_deref().map(str::trim) {
             Some(n) if !n.is_empty() => Ok(n.to_string()),
             _ => Err(self.problem("no `name`")),
@@ -353,7 +373,7 @@ impl Ctx<'_> {
     }
 
     /// Checks values against their uncertainties and converts them to SI.
-    fn values(&self, entry: &RawEntry) -> Result<ThermoIncrement, TableError> {
+    fn values(&self, entry: &RawEntry) -> Result<ThermoIncrement, DataError> {
         if entry.hf.is_none() && entry.s.is_none() && entry.cp.is_none() {
             return Err(self.problem("no values: give `hf`, `s` and `cp`, or `same_as`"));
         }
@@ -379,12 +399,10 @@ impl Ctx<'_> {
         if let Some(cp) = &entry.cp {
             let expected = self.units.cp_temperatures.len();
             if cp.len() != expected {
-                return Err(TableError::CpLength {
-                    path: self.path.to_path_buf(),
-                    place: self.place.clone(),
+                return Err(self.fail(Problem::CpLength {
                     found: cp.len(),
                     expected,
-                });
+                }));
             }
             if cp.iter().any(|c| !c.is_finite()) {
                 return Err(self.problem("`cp` holds a value that is not a finite number"));
@@ -403,16 +421,12 @@ impl Ctx<'_> {
     }
 
     /// The uncertainty that must accompany a given value.
-    fn paired(&self, field: &'static str, value: f64, unc: Option<f64>) -> Result<f64, TableError> {
+    fn paired(&self, field: &'static str, value: f64, unc: Option<f64>) -> Result<f64, DataError> {
         if !value.is_finite() {
             return Err(self.problem(format!("`{field}` is not a finite number")));
         }
         match unc {
-            None => Err(TableError::NoUncertainty {
-                path: self.path.to_path_buf(),
-                place: self.place.clone(),
-                field,
-            }),
+            None => Err(self.fail(Problem::NoUncertainty { field })),
             Some(u) if !u.is_finite() || u < 0.0 => Err(self.problem(format!(
                 "`unc_{field}` must be a finite number >= 0, not {u}"
             ))),
@@ -420,7 +434,7 @@ impl Ctx<'_> {
         }
     }
 
-    fn forbid_lone_uncertainty(&self, field: &str, unc: Option<f64>) -> Result<(), TableError> {
+    fn forbid_lone_uncertainty(&self, field: &str, unc: Option<f64>) -> Result<(), DataError> {
         if unc.is_some() {
             return Err(self.problem(format!("`unc_{field}` is given without `{field}`")));
         }
@@ -463,14 +477,4 @@ fn regrid(temps: &[f64], values: &[f64]) -> [f64; 7] {
         *slot = c0 + (t - t0) / (t1 - t0) * (c1 - c0);
     }
     out
-}
-
-/// 1-based line and column (in characters) of a byte offset.
-fn line_and_column(text: &str, offset: usize) -> (usize, usize) {
-    let offset = offset.min(text.len());
-    let before = text.get(..offset).unwrap_or(text);
-    let line = before.matches('\n').count() + 1;
-    let line_start = before.rfind('\n').map_or(0, |i| i + 1);
-    let column = before.get(line_start..).map_or(0, |s| s.chars().count()) + 1;
-    (line, column)
 }
