@@ -257,7 +257,7 @@ fn main() {
     // Compounds already used by other files' derivations stay unavailable.
     let base = GroupTables::load_dir(&work).expect("tables load");
     let mut used: HashSet<String> = HashSet::new();
-    used.extend(base.derived_cas(Property::Hf));
+    used.extend(base.derived_cas(Property::Hf298));
     let mut groups_out = String::new();
     let mut rings_out = String::new();
     let mut corrections_out = String::new();
@@ -446,7 +446,7 @@ fn main() {
                 r.hf, r.hf_source
             );
             // The properties whose values rest on this compound's measurements.
-            let mut derived = vec![Property::Hf];
+            let mut derived = vec![Property::Hf298];
             if conformational {
                 let _ = write!(
                     out,
@@ -467,7 +467,7 @@ fn main() {
                     let s = (s_meas - s_est.value) / k;
                     let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
                     let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
-                    derived.push(Property::S);
+                    derived.push(Property::S298);
                     what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) ({s_from})"));
                 }
                 if let (Some(cp_meas), Some(cp_est)) = (trc_of.and_then(|t| t.cp_j), est.cp_j) {

@@ -34,7 +34,7 @@ fn derived_entries_reproduce_their_source_compounds() {
         })
         .collect();
     let sources = engine.tables.provenances().flat_map(|(entry, p)| {
-        p.compounds_for(Property::Hf)
+        p.compounds_for(Property::Hf298)
             .map(|d| {
                 (
                     entry.clone(),

@@ -113,8 +113,8 @@ fn run_validation() -> Figures {
     // CAS numbers that table values were derived from: Hf298 (the species is then left out),
     // or S298 or Cp only.
     let t = &engine.tables;
-    let derived = t.derived_cas(Property::Hf);
-    let s_derived = t.derived_cas(Property::S);
+    let derived = t.derived_cas(Property::Hf298);
+    let s_derived = t.derived_cas(Property::S298);
     let cp_derived = t.derived_cas(Property::Cp);
 
     let table = Table::read("thermo_reference.tsv");

@@ -12,9 +12,10 @@ use super::error::{DataError, EntryKind, EntryPlace, Place, Problem};
 use super::provenance::{Property, Provenance};
 use crate::groups::table::{
     CorrectionEntry, EntryOrigin, GroupEntry, KnownValues, RingEntry, ThermoIncrement,
-    CP_TEMPERATURES_K, JOULES_PER_CALORIE,
+    CP_TEMPERATURES_K,
 };
 use crate::groups::GroupKey;
+use crate::units::JOULES_PER_CALORIE;
 
 /// The entries of one file, in file order.
 #[derive(Debug, Default)]
@@ -352,13 +353,14 @@ impl Ctx<'_> {
             .map_err(|problem| self.fail(Problem::Provenance(problem)))?;
         for property in provenance.properties() {
             let given = match property {
-                Property::Hf => values.known.hf,
-                Property::S => values.known.s,
+                Property::Hf298 => values.known.hf,
+                Property::S298 => values.known.s,
                 Property::Cp => values.known.cp,
             };
             if !given {
                 return Err(self.fail(Problem::Provenance(format!(
-                    "lists `{property}`, which this entry does not give"
+                    "lists `{}`, which this entry does not give",
+                    super::provenance::field(property)
                 ))));
             }
         }

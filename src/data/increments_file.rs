@@ -6,8 +6,8 @@ use toml::Spanned;
 
 use super::document::Source;
 use super::error::{DataError, EntryKind, EntryPlace, Place, Problem};
-use crate::thermo::quantity::JOULES_PER_CALORIE;
 use crate::thermo::Quantity;
+use crate::units::JOULES_PER_CALORIE;
 
 /// The four saturated carbon centres, by number of carbon neighbours (1 to 4).
 pub const CENTRES: [&str; 4] = ["C-(C)(H)3", "C-(C)2(H)2", "C-(C)3(H)", "C-(C)4"];

@@ -18,47 +18,34 @@
 //!     r#"derived_from = { cas = "109-99-9", name = "tetrahydrofuran", properties = ["s", "cp"] }"#,
 //! ).unwrap()["derived_from"].clone();
 //! let p = Provenance::from_toml(&value).unwrap();
-//! assert!(p.is_derived(Property::S) && !p.is_derived(Property::Hf));
+//! assert!(p.is_derived(Property::S298) && !p.is_derived(Property::Hf298));
 //! assert_eq!(p.cas_for(Property::Cp).collect::<Vec<_>>(), ["109-99-9"]);
 //! ```
 
 use std::fmt;
 
-/// A property a table entry gives.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash, serde::Serialize)]
-#[serde(rename_all = "lowercase")]
-pub enum Property {
-    /// Enthalpy of formation at 298.15 K (`hf`).
-    Hf,
-    /// Entropy at 298.15 K (`s`).
-    S,
-    /// Heat capacity Cp(T) (`cp`).
-    Cp,
-}
+pub use crate::thermo::Property;
 
-impl Property {
-    /// All properties, in file order.
-    pub const ALL: [Property; 3] = [Property::Hf, Property::S, Property::Cp];
+/// Every property, in file order (`hf`, `s`, `cp`).
+pub const PROPERTIES: [Property; 3] = [Property::Hf298, Property::S298, Property::Cp];
 
-    /// The field name the files use (`hf`, `s`, `cp`).
-    pub fn field(self) -> &'static str {
-        match self {
-            Property::Hf => "hf",
-            Property::S => "s",
-            Property::Cp => "cp",
-        }
-    }
-
-    /// The property of a field name.
-    pub fn from_field(field: &str) -> Option<Property> {
-        Property::ALL.into_iter().find(|p| p.field() == field)
+/// The field name the data files use for a property (`hf`, `s`, `cp`).
+pub fn field(property: Property) -> &'static str {
+    match property {
+        Property::Hf298 => "hf",
+        Property::S298 => "s",
+        Property::Cp => "cp",
     }
 }
 
-impl fmt::Display for Property {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.write_str(self.field())
-    }
+/// The property of a field name (`hf`, `s`, `cp`).
+pub fn from_field(name: &str) -> Option<Property> {
+    PROPERTIES.into_iter().find(|p| field(*p) == name)
+}
+
+/// Position of a property in file order (for sorting).
+fn rank(property: Property) -> usize {
+    PROPERTIES.iter().position(|p| *p == property).unwrap_or(0)
 }
 
 /// A CAS registry number, checked for its form (`N-NN-N`, 2 to 7 digits first) and check digit.
@@ -120,7 +107,7 @@ pub struct DerivedFrom {
     pub cas: Cas,
     /// Its name, as the source gives it.
     pub name: String,
-    /// The entry's properties that were derived from it (sorted, no repeats, at least one).
+    /// The entry's properties that were derived from it (in file order, no repeats, at least one).
     pub properties: Vec<Property>,
 }
 
@@ -188,16 +175,12 @@ impl Provenance {
         self.compounds_for(property).next().is_some()
     }
 
-    /// Every property derived from any compound (sorted, no repeats).
+    /// Every property derived from any compound (in file order, no repeats).
     pub fn properties(&self) -> Vec<Property> {
-        let mut all: Vec<Property> = self
-            .derived_from
-            .iter()
-            .flat_map(|d| d.properties.iter().copied())
-            .collect();
-        all.sort();
-        all.dedup();
-        all
+        PROPERTIES
+            .into_iter()
+            .filter(|p| self.is_derived(*p))
+            .collect()
     }
 
     /// The TOML text of the `derived_from` value (an inline table, or an array of them), as the
@@ -210,7 +193,7 @@ impl Provenance {
                 let props: Vec<String> = d
                     .properties
                     .iter()
-                    .map(|p| format!("\"{}\"", p.field()))
+                    .map(|p| format!("\"{}\"", field(*p)))
                     .collect();
                 format!(
                     "{{ cas = {}, name = {}, properties = [{}] }}",
@@ -276,17 +259,20 @@ fn read_compound(item: &toml::Value) -> Result<DerivedFrom, String> {
     for p in list {
         let property = p
             .as_str()
-            .and_then(Property::from_field)
+            .and_then(from_field)
             .ok_or_else(|| format!("{cas}: property {p} is not one of \"hf\", \"s\", \"cp\""))?;
         if properties.contains(&property) {
-            return Err(format!("{cas}: property \"{property}\" listed twice"));
+            return Err(format!(
+                "{cas}: property \"{}\" listed twice",
+                field(property)
+            ));
         }
         properties.push(property);
     }
     if properties.is_empty() {
         return Err(format!("{cas}: `properties` is empty"));
     }
-    properties.sort();
+    properties.sort_by_key(|p| rank(*p));
     Ok(DerivedFrom {
         cas,
         name,
@@ -307,15 +293,15 @@ mod tests {
     fn one_or_several_compounds_are_read_and_written_back() {
         let one = r#"derived_from = { cas = "109-99-9", name = "tetrahydrofuran", properties = ["cp", "s"] }"#;
         let p = read(one).unwrap();
-        assert_eq!(p.properties(), [Property::S, Property::Cp]);
+        assert_eq!(p.properties(), [Property::S298, Property::Cp]);
         assert_eq!(
             format!("derived_from = {}", p.to_toml().unwrap()),
             one.replace("[\"cp\", \"s\"]", "[\"s\", \"cp\"]")
         );
         let two = r#"derived_from = [{ cas = "71-43-2", name = "benzene", properties = ["hf"] }, { cas = "7732-18-5", name = "water", properties = ["s"] }]"#;
         let p = read(two).unwrap();
-        assert_eq!(p.cas_for(Property::Hf).collect::<Vec<_>>(), ["71-43-2"]);
-        assert_eq!(p.cas_for(Property::S).collect::<Vec<_>>(), ["7732-18-5"]);
+        assert_eq!(p.cas_for(Property::Hf298).collect::<Vec<_>>(), ["71-43-2"]);
+        assert_eq!(p.cas_for(Property::S298).collect::<Vec<_>>(), ["7732-18-5"]);
         assert_eq!(format!("derived_from = {}", p.to_toml().unwrap()), two);
     }
 

@@ -20,7 +20,6 @@ use crate::data::increments_file::parse_increments_file;
 use crate::data::{bundled, DataError};
 use crate::molecule::{BondOrder, Element, Molecule};
 use crate::thermo::Quantity;
-use crate::units::JOULES_PER_CALORIE;
 
 /// Path label of the bundled file (relative to the crate root).
 pub const BUNDLED_INCREMENTS_PATH: &str = bundled::INCREMENTS_FILE.0;

@@ -323,9 +323,9 @@ fn typed_provenance_is_read_per_property() {
         .group(&GroupKey::parse("C-(C)(H)3").unwrap())
         .unwrap();
     let p = &entry.provenance;
-    assert_eq!(p.cas_for(Property::Hf).collect::<Vec<_>>(), ["71-43-2"]);
+    assert_eq!(p.cas_for(Property::Hf298).collect::<Vec<_>>(), ["71-43-2"]);
     assert_eq!(p.cas_for(Property::Cp).collect::<Vec<_>>(), ["7732-18-5"]);
-    assert!(tables.derived_cas(Property::S).contains("7732-18-5"));
+    assert!(tables.derived_cas(Property::S298).contains("7732-18-5"));
     assert_eq!(tables.provenances().count(), 1);
 }
 
