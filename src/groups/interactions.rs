@@ -21,7 +21,10 @@
 //!   `1,5-interaction-(O)` is the same count with an ether oxygen as M (di-tert-butyl ether: 3).
 //! - `cis`: for every acyclic C=C, the pairs of non-hydrogen substituents on the same side: one
 //!   for a trisubstituted bond, two for a tetrasubstituted one, and for a 1,2-disubstituted bond
-//!   one if written Z, none if written E or unspecified (then flagged as assumed E).
+//!   one if written Z, none if written E or unspecified. Where the input gives no geometry and
+//!   the arrangements differ, the one with the fewest and mildest cis pairs is taken, and
+//!   between equal ones the heavier substituents (by atomic number of the first atom) trans;
+//!   a note says which was assumed.
 //!   A cis pair with one tert-butyl is `cis-tert-butyl`, with two `cis-di-tert-butyl` (each
 //!   falls back to `cis` when the tables lack it). A pair that is not two carbons is
 //!   `cis-(X)(Y)` with no stand-in (Benson's `cis` is for alkyl pairs).
@@ -48,20 +51,37 @@ pub struct InteractionCount {
 /// An assumption made while counting interactions (shown as a flag of the estimate).
 #[derive(Debug, Clone, PartialEq, Eq, serde::Serialize)]
 pub enum InteractionNote {
-    /// A double bond whose geometry the input does not give was taken as E (trans).
+    /// A double bond whose geometry the input does not give, where the arrangements differ:
+    /// the one taken by the documented rule (fewest and mildest cis pairs, then the heavier
+    /// substituents trans).
     DoubleBondGeometryUnknown {
-        /// 1-based numbers of the two double-bond atoms.
+        /// 1-based input numbers of the two double-bond atoms.
         atoms: [usize; 2],
+        /// The cis corrections of the arrangement taken (empty: E, no cis pair).
+        cis_pairs: Vec<String>,
     },
 }
 
 impl std::fmt::Display for InteractionNote {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
-            InteractionNote::DoubleBondGeometryUnknown { atoms: [a, b] } => write!(
+            InteractionNote::DoubleBondGeometryUnknown {
+                atoms: [a, b],
+                cis_pairs,
+            } if cis_pairs.is_empty() => write!(
                 f,
                 "double bond between atoms {a} and {b} has no geometry in the input: taken \
                  as E (trans), no cis correction"
+            ),
+            InteractionNote::DoubleBondGeometryUnknown {
+                atoms: [a, b],
+                cis_pairs,
+            } => write!(
+                f,
+                "double bond between atoms {a} and {b} has no geometry in the input: taken \
+                 as the arrangement with cis pair(s) {} (rule: fewest and mildest cis pairs, \
+                 then the heavier substituents trans)",
+                cis_pairs.join(", ")
             ),
         }
     }
@@ -334,38 +354,72 @@ fn count_cis(
             double_bond_geometry(p, a, sa[0], b, sb[0]) == Some(false)
         }
     });
-    let cost = |pairs: &Vec<(NodeIndex, NodeIndex)>| -> usize {
-        pairs
+    // Order-free choice: fewest and mildest cis pairs (a tert-butyl pair costs most); between
+    // equal ones, the heavier substituents trans (the smaller sum of atomic numbers in cis
+    // pairs, E by the first atoms' priority).
+    let cost = |pairs: &Vec<(NodeIndex, NodeIndex)>| -> (usize, u32) {
+        let strain = pairs
             .iter()
             .map(|&(x, y)| 1 + 10 * (tb(x, a) + tb(y, b)))
-            .sum()
+            .sum();
+        let weight = pairs
+            .iter()
+            .map(|&(x, y)| {
+                u32::from(mol.atom(x).element.atomic_number())
+                    + u32::from(mol.atom(y).element.atomic_number())
+            })
+            .sum();
+        (strain, weight)
+    };
+    let names = |pairs: &Vec<(NodeIndex, NodeIndex)>| -> Vec<String> {
+        let mut n: Vec<String> = pairs
+            .iter()
+            .map(|&(x, y)| cis_pair_name(p, types, a, b, x, y).0)
+            .collect();
+        n.sort();
+        n
     };
     let chosen = match known {
         Some(i) => i,
         None => {
-            if sa.len() == 1 && sb.len() == 1 {
+            let best = (0..arrangements.len())
+                .min_by_key(|&i| cost(&arrangements[i]))
+                .unwrap_or(0);
+            let taken = names(&arrangements[best]);
+            if arrangements.iter().any(|other| names(other) != taken) {
                 out.notes.push(InteractionNote::DoubleBondGeometryUnknown {
-                    atoms: [a.index() + 1, b.index() + 1],
+                    atoms: [p.input_atom_number(a), p.input_atom_number(b)],
+                    cis_pairs: taken,
                 });
             }
-            (0..arrangements.len())
-                .min_by_key(|&i| cost(&arrangements[i]))
-                .unwrap_or(0)
+            best
         }
     };
     for &(x, y) in &arrangements[chosen] {
-        let carbon = |n: NodeIndex| mol.atom(n).element == Element::C;
-        if carbon(x) && carbon(y) {
-            let name = cis_name(tb(x, a) + tb(y, b));
-            let fallback = (name != "cis").then_some("cis");
-            out.add(name, fallback, 1);
-        } else {
-            // Benson's cis value is for alkyl pairs; a polar pair (cis-1,2-dichloroethene is
-            // the more stable isomer) gets a correction of its own or none.
-            let key =
-                super::key::GroupKey::new("cis", &[types.ligand_name(x), types.ligand_name(y)]);
-            out.add(&key.to_string(), None, 1);
-        }
+        let (name, fallback) = cis_pair_name(p, types, a, b, x, y);
+        out.add(&name, fallback, 1);
+    }
+}
+
+/// The correction for one cis pair `x` (on `a`) and `y` (on `b`), and its stand-in.
+fn cis_pair_name(
+    p: &PerceivedMolecule,
+    types: &AtomTypes,
+    a: NodeIndex,
+    b: NodeIndex,
+    x: NodeIndex,
+    y: NodeIndex,
+) -> (String, Option<&'static str>) {
+    let carbon = |n: NodeIndex| p.mol.atom(n).element == Element::C;
+    if carbon(x) && carbon(y) {
+        let tb = |s: NodeIndex, from: NodeIndex| usize::from(is_tert_butyl(p, types, s, from));
+        let name = cis_name(tb(x, a) + tb(y, b));
+        (name.to_string(), (name != "cis").then_some("cis"))
+    } else {
+        // Benson's cis value is for alkyl pairs; a polar pair (cis-1,2-dichloroethene is
+        // the more stable isomer) gets a correction of its own or none.
+        let key = super::key::GroupKey::new("cis", &[types.ligand_name(x), types.ligand_name(y)]);
+        (key.to_string(), None)
     }
 }
 

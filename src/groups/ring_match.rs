@@ -1,10 +1,12 @@
 //! Ring corrections: the skeleton of each ring system, and its match in the ring tables.
 //!
 //! A skeleton is the ring system's atoms (element), the bonds between them (order, or aromatic),
-//! and exocyclic atoms joined to it by a double bond (=O, =CH2, =S, =N). Hydrogens and other
+//! and exocyclic atoms joined to it by a non-aromatic double bond (=O, =CH2, =S, =N). Hydrogens and other
 //! substituents do not count. Rings made only of aromatic carbons (benzenoid six-rings) are left
 //! out, since Benson's `Cb`/`Cbf` groups already carry them; a ring fused to one keeps the shared
-//! aromatic bond. Table entries are matched by graph isomorphism of skeletons.
+//! aromatic bond, its two ends marked as benzo-fused. Nothing in a skeleton depends on the
+//! Kekulé structure: aromatic bonds have one label, and a double bond into an aromatic ring is
+//! not an exocyclic atom. Table entries are matched by graph isomorphism of skeletons.
 
 use std::collections::HashMap;
 
@@ -20,6 +22,9 @@ pub struct SkeletonAtom {
     pub element: Element,
     /// False for an exocyclic double-bonded atom.
     pub in_ring: bool,
+    /// Whether the atom also belongs to a benzenoid ring left out of the skeleton (the ends
+    /// of a bond shared with a benzo ring), so that quinoline's pyridine ring is not pyridine.
+    pub benzo_fused: bool,
 }
 
 /// A bond of a ring skeleton.
@@ -32,7 +37,7 @@ pub enum SkeletonBond {
 }
 
 /// Atom count, bond count and sorted atom labels of a skeleton.
-pub type SkeletonSignature = (usize, usize, Vec<(u8, bool)>);
+pub type SkeletonSignature = (usize, usize, Vec<(u8, bool, bool)>);
 
 /// The skeleton of one ring system of a molecule.
 #[derive(Debug, Clone)]
@@ -53,10 +58,10 @@ impl RingSkeleton {
 
     /// A cheap invariant used to pre-filter candidates before the isomorphism test.
     pub fn signature(&self) -> SkeletonSignature {
-        let mut labels: Vec<(u8, bool)> = self
+        let mut labels: Vec<(u8, bool, bool)> = self
             .graph
             .node_weights()
-            .map(|a| (a.element.atomic_number(), a.in_ring))
+            .map(|a| (a.element.atomic_number(), a.in_ring, a.benzo_fused))
             .collect();
         labels.sort_unstable();
         (self.graph.node_count(), self.graph.edge_count(), labels)
@@ -95,6 +100,7 @@ impl RingSkeleton {
                 let m = graph.add_node(SkeletonAtom {
                     element: Element::C,
                     in_ring: true,
+                    benzo_fused: self.graph[n].benzo_fused,
                 });
                 map.insert(n, m);
             }
@@ -122,6 +128,12 @@ pub fn is_benzenoid(p: &PerceivedMolecule, r: usize) -> bool {
 /// Builds the skeleton spanned by the given SSSR rings.
 pub fn skeleton_of_rings(p: &PerceivedMolecule, rings: &[usize]) -> RingSkeleton {
     let mol = &p.mol;
+    let mut benzo = vec![false; mol.atom_count()];
+    for r in (0..p.rings.rings.len()).filter(|&r| is_benzenoid(p, r)) {
+        for a in &p.rings.rings[r].atoms {
+            benzo[a.index()] = true;
+        }
+    }
     let mut graph = UnGraph::new_undirected();
     let mut map: HashMap<NodeIndex, NodeIndex> = HashMap::new();
     let mut atoms = Vec::new();
@@ -133,6 +145,7 @@ pub fn skeleton_of_rings(p: &PerceivedMolecule, rings: &[usize]) -> RingSkeleton
                 v.insert(graph.add_node(SkeletonAtom {
                     element: mol.atom(a).element,
                     in_ring: true,
+                    benzo_fused: benzo[a.index()],
                 }));
                 atoms.push(a);
             }
@@ -157,10 +170,13 @@ pub fn skeleton_of_rings(p: &PerceivedMolecule, rings: &[usize]) -> RingSkeleton
     }
     for &a in &atoms {
         for (n, bond) in mol.neighbours(a) {
-            if bond.order == BondOrder::Double && !map.contains_key(&n) {
+            // A double bond into a neighbouring aromatic ring is a Kekulé choice, not a
+            // substituent: it is left out, so the skeleton does not follow the Kekulé form.
+            if bond.order == BondOrder::Double && !bond.aromatic && !map.contains_key(&n) {
                 let x = graph.add_node(SkeletonAtom {
                     element: mol.atom(n).element,
                     in_ring: false,
+                    benzo_fused: false,
                 });
                 graph.add_edge(map[&a], x, label(bond));
             }

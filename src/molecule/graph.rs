@@ -220,6 +220,12 @@ impl Molecule {
     /// non-hydrogen atom, not named by a chiral centre) are folded into their neighbour's
     /// hydrogen count. Group assignment and canonical keys work on this form.
     pub fn with_hydrogens_folded(&self) -> Molecule {
+        self.with_hydrogens_folded_map().0
+    }
+
+    /// [`Molecule::with_hydrogens_folded`] and, for each atom of `self`, its node in the copy
+    /// (`None` for a folded hydrogen).
+    pub fn with_hydrogens_folded_map(&self) -> (Molecule, Vec<Option<NodeIndex>>) {
         let foldable = |i: NodeIndex| -> Option<NodeIndex> {
             let a = &self.graph[i];
             if a.element != Element::H
@@ -283,6 +289,6 @@ impl Molecule {
                 })
             })
             .collect();
-        out
+        (out, map)
     }
 }

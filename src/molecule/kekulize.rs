@@ -80,6 +80,44 @@ pub fn kekulize(mol: &mut Molecule) -> Result<(), KekulizeError> {
     Ok(())
 }
 
+/// Chooses the double bonds among `bonds` afresh: every one of them is made single, then a
+/// perfect matching of their atoms (taken in node order) picks the doubles. The bonds must be
+/// the resonant bonds of a Kekulé structure (every atom of them carries exactly one double bond
+/// among them), so a matching exists; if none is found the orders are left as they were. The
+/// choice depends only on the graph and its atom order, so a canonically ordered molecule gets
+/// a canonical Kekulé structure.
+pub(crate) fn rematch_double_bonds(mol: &mut Molecule, bonds: &[EdgeIndex]) {
+    let mut local = vec![usize::MAX; mol.atom_count()];
+    let mut atoms: Vec<NodeIndex> = bonds
+        .iter()
+        .filter_map(|&e| mol.graph.edge_endpoints(e))
+        .flat_map(|(a, b)| [a, b])
+        .collect();
+    atoms.sort_unstable();
+    atoms.dedup();
+    for (k, a) in atoms.iter().enumerate() {
+        local[a.index()] = k;
+    }
+    let mut sorted = bonds.to_vec();
+    sorted.sort_unstable();
+    let edges: Vec<(usize, usize)> = sorted
+        .iter()
+        .filter_map(|&e| mol.graph.edge_endpoints(e))
+        .map(|(a, b)| (local[a.index()], local[b.index()]))
+        .collect();
+    let adjacency = matching::Adjacency::new(atoms.len(), &edges);
+    let Ok(mate) = matching::perfect_matching(&adjacency) else {
+        return;
+    };
+    for (&(a, b), &e) in edges.iter().zip(&sorted) {
+        mol.graph[e].order = if mate[a] == b {
+            BondOrder::Double
+        } else {
+            BondOrder::Single
+        };
+    }
+}
+
 /// Whether the aromatic atom `node` has exactly one valence unit left for a pi double bond.
 fn needs_double_bond(mol: &Molecule, node: NodeIndex) -> bool {
     let atom: &Atom = &mol.graph[node];

@@ -63,7 +63,11 @@ pub fn ring_system_strain(
             variance += v.unc_hf_kj.powi(2);
             corrections.push(entry.name.clone());
         }
-        let mut atoms: Vec<usize> = skeleton.atoms.iter().map(|a| a.index() + 1).collect();
+        let mut atoms: Vec<usize> = skeleton
+            .atoms
+            .iter()
+            .map(|&a| p.input_atom_number(a))
+            .collect();
         atoms.sort_unstable();
         out.push(RingSystemStrain {
             number: k + 1,

@@ -178,7 +178,7 @@ impl GroupAdditivity {
     ) -> Result<ThermoEstimate, EstimateError> {
         check_one_molecule(p)?;
         let assignment = assign(p)?;
-        let mut steps = self.group_terms(&assignment, options)?;
+        let mut steps = self.group_terms(p, &assignment, options)?;
         steps.extend(self.correction_terms(p, &assignment, options)?);
         steps.extend(self.ring_terms(p, options)?);
         let (symmetry, overridden) = symmetry_used(p, options);
@@ -189,6 +189,7 @@ impl GroupAdditivity {
     /// groups the tables lack (unless strict). Groups with neither are an error naming them.
     pub fn group_terms(
         &self,
+        p: &PerceivedMolecule,
         assignment: &GroupAssignment,
         options: &EstimateOptions,
     ) -> Result<StepTerms, EstimateError> {
@@ -247,7 +248,7 @@ impl GroupAdditivity {
                 None => missing.push(MissingGroup {
                     key,
                     count,
-                    atom: atom.index() + 1,
+                    atom: p.input_atom_number(atom),
                 }),
             }
         }
@@ -400,7 +401,7 @@ fn assign(p: &PerceivedMolecule) -> Result<GroupAssignment, EstimateError> {
     assign_groups(p).map_err(|u| {
         let atom = p.mol.atom(u.atom);
         EstimateError::Untyped {
-            atom: u.atom.index() + 1,
+            atom: p.input_atom_number(u.atom),
             element: atom.element.to_string(),
             column: atom.column,
             reason: u.reason,

@@ -36,10 +36,10 @@
 //! para-type rings (1,4-dimethylcyclohexane, inositols, 1,3,5-trisubstituted cyclohexanes) but
 //! is not a proof of canonicity for every stereo graph.
 
-mod prepare;
+pub(crate) mod prepare;
 mod ranking;
 mod resonance;
-mod stereo;
+pub(crate) mod stereo;
 mod writer;
 
 use crate::molecule::graph::Molecule;
@@ -52,11 +52,40 @@ pub fn canonical_smiles(mol: &Molecule) -> String {
     if mol.atom_count() == 0 {
         return String::new();
     }
-    let prepared = Prepared::new(mol);
+    let form = CanonicalForm::of(mol);
+    writer::write(&form.prepared, &form.stereo, &form.ranks)
+}
+
+/// A molecule prepared for its canonical key: hydrogens folded, bonds classified, the stereo
+/// elements that make a stereoisomer, and the canonical rank of every atom (all distinct).
+#[derive(Debug, Clone)]
+pub(crate) struct CanonicalForm {
+    pub prepared: Prepared,
+    pub stereo: StereoSet,
+    /// Canonical rank of each atom of `prepared.folded`, a permutation of `0..n`.
+    pub ranks: Vec<u32>,
+}
+
+impl CanonicalForm {
+    /// The canonical form of `mol` (an empty molecule gives empty lists).
+    pub fn of(mol: &Molecule) -> CanonicalForm {
+        let prepared = Prepared::new(mol);
+        let stereo = stereogenic_elements(&prepared);
+        let ranks = ranking::canonical_ranks(&prepared, &stereo);
+        CanonicalForm {
+            prepared,
+            stereo,
+            ranks,
+        }
+    }
+}
+
+/// The input's stereo elements less those that describe no stereoisomer of their own.
+fn stereogenic_elements(prepared: &Prepared) -> StereoSet {
     let mut stereo = prepared.stereo.clone();
-    let suspects = ranking::undefined_after_refinement(&prepared, &stereo);
+    let suspects = ranking::undefined_after_refinement(prepared, &stereo);
     if suspects.is_empty() {
-        return key_with(&prepared, &stereo);
+        return stereo;
     }
     // A mark whose inversion gives the same key describes no stereoisomer of its own. Drop such
     // marks one at a time; when several qualify, drop the one whose removal gives the smallest
@@ -64,27 +93,27 @@ pub fn canonical_smiles(mol: &Molecule) -> String {
     // cyclohexane either twin may go, and the two results differ).
     let mut remaining = suspects;
     loop {
-        let kept = key_with(&prepared, &stereo);
+        let kept = key_with(prepared, &stereo);
         let mut best: Option<(String, usize)> = None;
         for (k, &id) in remaining.iter().enumerate() {
             let mut flipped = stereo.clone();
             flipped.flip(id);
-            if key_with(&prepared, &flipped) != kept {
+            if key_with(prepared, &flipped) != kept {
                 continue;
             }
             let mut without = stereo.clone();
             without.drop_element(id);
-            let key = key_with(&prepared, &without);
+            let key = key_with(prepared, &without);
             if best.as_ref().is_none_or(|(b, _)| key < *b) {
                 best = Some((key, k));
             }
         }
-        let Some((key, k)) = best else {
-            return kept;
+        let Some((_, k)) = best else {
+            return stereo;
         };
         stereo.drop_element(remaining.remove(k));
         if remaining.is_empty() {
-            return key;
+            return stereo;
         }
     }
 }

@@ -33,12 +33,18 @@ pub(crate) struct Prepared {
     pub ring_atom: Vec<bool>,
     /// Stereo elements read from the input, relative to input order.
     pub stereo: StereoSet,
+    /// The molecule with every plain hydrogen folded: its node `i` is atom `i` here and its
+    /// edge `e` is bond `e` (nitro and halogen oxo groups charge-separated).
+    pub folded: Molecule,
+    /// For each atom of the input molecule, its atom here (`None` for a folded hydrogen).
+    pub from_input: Vec<Option<NodeIndex>>,
 }
 
 impl Prepared {
     /// Folds hydrogens (also those named by stereo marks), classifies bonds and reads stereo.
     pub fn new(mol: &Molecule) -> Prepared {
-        let folded = fold_all_hydrogens(mol);
+        let (mut folded, from_input) = fold_all_hydrogens(mol);
+        separate_charges(&mut folded);
         let atoms: Vec<Atom> = folded.graph.node_weights().cloned().collect();
         let mut adj = vec![Vec::new(); atoms.len()];
         let mut bonds = Vec::with_capacity(folded.bond_count());
@@ -56,8 +62,6 @@ impl Prepared {
                 direction: e.weight().direction.map(|(f, d)| (f.index(), d)),
             });
         }
-        let mut atoms = atoms;
-        separate_nitro_charges(&mut atoms, &adj, &mut bonds);
         let ring = ring_bonds(&adj, bonds.len());
         let mut ring_atom = vec![false; atoms.len()];
         for (bond, &r) in bonds.iter_mut().zip(&ring) {
@@ -83,11 +87,14 @@ impl Prepared {
             resonant_atom,
             ring_atom,
             stereo: StereoSet::default(),
+            folded: Molecule::new(),
+            from_input,
         };
         prepared.stereo = StereoSet {
             tetra: read_tetrahedral(&folded, &prepared),
             double: read_double_bonds(&prepared),
         };
+        prepared.folded = folded;
         prepared
     }
 
@@ -136,7 +143,7 @@ pub(crate) fn side_of(s: usize, direction: (usize, BondDirection)) -> i8 {
 /// Folds every plain hydrogen node, including those named by chiral centres (they become the
 /// centre's implicit hydrogen) and those carrying the only `/` `\` mark at a double-bond end
 /// (the mark moves to the other substituent, on the opposite side).
-fn fold_all_hydrogens(mol: &Molecule) -> Molecule {
+fn fold_all_hydrogens(mol: &Molecule) -> (Molecule, Vec<Option<NodeIndex>>) {
     let mut m = mol.clone();
     let plain: Vec<Option<NodeIndex>> = m.atoms().map(|i| plain_hydrogen(mol, i)).collect();
     for centre in &mut m.chiral_centres {
@@ -203,7 +210,7 @@ fn fold_all_hydrogens(mol: &Molecule) -> Molecule {
             }
         }
     }
-    m.with_hydrogens_folded()
+    m.with_hydrogens_folded_map()
 }
 
 /// Marks bonds that lie on a cycle (the non-bridges), by an iterative low-link search.
@@ -251,33 +258,50 @@ fn ring_bonds(adj: &[Vec<(usize, usize)>], bond_count: usize) -> Vec<bool> {
     ring
 }
 
-/// Writes a pentavalent nitro group `N(=O)=O` in its charge-separated form `[N+](=O)[O-]`, so
-/// both spellings of one molecule get one key (the form RDKit and most tables use).
-fn separate_nitro_charges(
-    atoms: &mut [Atom],
-    adj: &[Vec<(usize, usize)>],
-    bonds: &mut [PreparedBond],
-) {
-    for n in 0..atoms.len() {
-        if atoms[n].element != Element::N || atoms[n].charge != 0 {
+/// Writes a pentavalent nitro group `N(=O)=O` in its charge-separated form `[N+](=O)[O-]`, and
+/// the oxo bonds of a neutral Cl, Br or I (`OI(=O)=O`) as `[I+2]([O-])[O-]`, so both spellings
+/// of one molecule get one key (the forms RDKit and most tables use).
+fn separate_charges(mol: &mut Molecule) {
+    let atoms: Vec<NodeIndex> = mol.atoms().collect();
+    for n in atoms {
+        let element = mol.atom(n).element;
+        let halogen = matches!(element, Element::CL | Element::BR | Element::I);
+        if (element != Element::N && !halogen) || mol.atom(n).charge != 0 {
             continue;
         }
-        let terminal_oxo: Vec<(usize, usize)> = adj[n]
-            .iter()
-            .copied()
+        let terminal_oxo: Vec<(NodeIndex, petgraph::graph::EdgeIndex)> = mol
+            .graph
+            .edges(n)
+            .map(|e| {
+                (
+                    if e.source() == n {
+                        e.target()
+                    } else {
+                        e.source()
+                    },
+                    e.id(),
+                )
+            })
             .filter(|&(o, b)| {
-                atoms[o].element == Element::O
-                    && atoms[o].charge == 0
-                    && adj[o].len() == 1
-                    && atoms[o].hydrogens == 0
-                    && bonds[b].order == BondOrder::Double
+                let a = mol.atom(o);
+                a.element == Element::O
+                    && a.charge == 0
+                    && a.hydrogens == 0
+                    && mol.degree(o) == 1
+                    && mol.graph[b].order == BondOrder::Double
             })
             .collect();
-        if terminal_oxo.len() == 2 {
-            let (o, b) = terminal_oxo[1];
-            bonds[b].order = BondOrder::Single;
-            atoms[o].charge = -1;
-            atoms[n].charge = 1;
+        let separated: &[(NodeIndex, petgraph::graph::EdgeIndex)] = if halogen {
+            &terminal_oxo
+        } else if terminal_oxo.len() == 2 {
+            &terminal_oxo[1..]
+        } else {
+            &[]
+        };
+        for &(o, b) in separated {
+            mol.graph[b].order = BondOrder::Single;
+            mol.graph[o].charge = -1;
+            mol.graph[n].charge += 1;
         }
     }
 }
