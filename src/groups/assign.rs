@@ -2,7 +2,7 @@
 
 use petgraph::graph::NodeIndex;
 
-use super::key::GroupKey;
+use super::key::{AtomType, GroupKey};
 use super::typing::{type_atoms, AtomRole, AtomTypes, UntypedAtom};
 use crate::molecule::{BondOrder, PerceivedMolecule};
 
@@ -24,11 +24,6 @@ pub struct GroupAssignment {
     pub types: AtomTypes,
 }
 
-/// Centre types whose multiple-bond partner is implied by the type and not listed as a ligand.
-const PARTNER_IMPLIED: &[&str] = &["Cd", "Ct", "Ca", "CI", "NI"];
-/// Centre types whose aromatic ring neighbours are implied and not listed.
-const RING_NEIGHBOURS_IMPLIED: &[&str] = &["Cb", "NA"];
-
 fn share_aromatic_six_ring(p: &PerceivedMolecule, a: NodeIndex, b: NodeIndex) -> bool {
     p.rings.rings.iter().any(|r| {
         r.atoms.len() == 6
@@ -46,20 +41,23 @@ pub fn assign_groups(p: &PerceivedMolecule) -> Result<GroupAssignment, UntypedAt
         let Some(centre) = types.centre(i) else {
             continue;
         };
-        let mut ligands: Vec<&str> = Vec::with_capacity(4);
+        let mut ligands: Vec<AtomType> = Vec::with_capacity(4);
         for (j, bond) in p.mol.neighbours(i) {
             if types.roles[j.index()] == AtomRole::Absorbed(i) {
                 continue;
             }
-            if PARTNER_IMPLIED.contains(&centre) && bond.order > BondOrder::Single {
+            if centre.implies_partner() && bond.order > BondOrder::Single {
                 continue;
             }
-            if RING_NEIGHBOURS_IMPLIED.contains(&centre) && share_aromatic_six_ring(p, i, j) {
+            if centre.implies_ring_neighbours() && share_aromatic_six_ring(p, i, j) {
                 continue;
             }
-            ligands.push(types.ligand_name(j));
+            ligands.push(types.ligand_type(j));
         }
-        ligands.extend(std::iter::repeat_n("H", p.mol.atom(i).hydrogens as usize));
+        ligands.extend(std::iter::repeat_n(
+            AtomType::H,
+            p.mol.atom(i).hydrogens as usize,
+        ));
         groups.push(AssignedGroup {
             atom: i,
             key: GroupKey::new(centre, &ligands),
@@ -73,28 +71,21 @@ pub fn assign_groups(p: &PerceivedMolecule) -> Result<GroupAssignment, UntypedAt
 /// key with every aromatic ring nitrogen ligand (`NA`) taken as a benzene carbon `Cb` (an aza
 /// ring atom in place of a CH one; common practice). Keys equal to `key` are left out.
 pub fn stand_in_candidates(key: &GroupKey) -> Vec<GroupKey> {
-    let generic = |name: &str| -> String {
-        match name {
-            "Cd" | "Ct" | "Cb" | "Cbf" | "Ca" | "CO" | "CN" | "CI" | "CS" => "C".to_string(),
-            "NI" | "NA" | "NO2" => "N".to_string(),
-            "SO" | "SO2" => "S".to_string(),
-            other => other.to_string(),
-        }
-    };
-    let aza_as_carbon = |name: &str| -> String {
-        match name {
-            "NA" => "Cb".to_string(),
-            other => other.to_string(),
-        }
+    let aza_as_carbon = |t: AtomType| match t {
+        AtomType::NA => AtomType::Cb,
+        other => other,
     };
     let mut out: Vec<GroupKey> = Vec::new();
-    for map in [&generic as &dyn Fn(&str) -> String, &aza_as_carbon] {
-        let ligands: Vec<String> = key
+    for map in [
+        &AtomType::generic as &dyn Fn(AtomType) -> AtomType,
+        &aza_as_carbon,
+    ] {
+        let ligands: Vec<AtomType> = key
             .ligands
             .iter()
-            .flat_map(|(name, n)| std::iter::repeat_n(map(name), *n as usize))
+            .flat_map(|(t, n)| std::iter::repeat_n(map(*t), *n as usize))
             .collect();
-        let candidate = GroupKey::new(&key.centre, &ligands);
+        let candidate = GroupKey::new(key.centre, &ligands);
         if candidate != *key && !out.contains(&candidate) {
             out.push(candidate);
         }

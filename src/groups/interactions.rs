@@ -34,6 +34,7 @@
 
 use petgraph::graph::NodeIndex;
 
+use super::key::{ligand_notation, AtomType};
 use super::typing::AtomTypes;
 use crate::molecule::{BondDirection, BondOrder, Element, PerceivedMolecule};
 
@@ -113,7 +114,7 @@ impl Interactions {
 }
 
 fn is_sp3_carbon(types: &AtomTypes, i: NodeIndex) -> bool {
-    types.centre(i) == Some("C")
+    types.centre(i) == Some(AtomType::C)
 }
 
 fn is_ring_bond(p: &PerceivedMolecule, a: NodeIndex, b: NodeIndex) -> bool {
@@ -125,7 +126,7 @@ fn is_ring_bond(p: &PerceivedMolecule, a: NodeIndex, b: NodeIndex) -> bool {
 
 /// Whether `o` is an ether oxygen: an O centre bonded to two sp3 carbons by acyclic bonds.
 fn is_acyclic_ether_oxygen(p: &PerceivedMolecule, types: &AtomTypes, o: NodeIndex) -> bool {
-    types.centre(o) == Some("O")
+    types.centre(o) == Some(AtomType::O)
         && p.mol.degree(o) == 2
         && p.mol
             .neighbours(o)
@@ -166,12 +167,11 @@ fn cis_name(tert_butyls: usize) -> &'static str {
 
 /// Correction name for an ortho pair of substituent types: Benson's `ortho` for two alkyl
 /// carbons, else `ortho-(X)(Y)` in the fixed ligand order.
-fn ortho_name(x: &str, y: &str) -> String {
-    if x == "C" && y == "C" {
+fn ortho_name(x: AtomType, y: AtomType) -> String {
+    if x == AtomType::C && y == AtomType::C {
         return "ortho".to_string();
     }
-    let key = super::key::GroupKey::new("ortho", &[x, y]);
-    key.to_string()
+    format!("ortho-{}", ligand_notation(&[x, y]))
 }
 
 /// Counts every interaction named in the module docs.
@@ -215,8 +215,8 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
                     out.add("gauche-(O)", None, n.saturating_sub(1));
                 }
             }
-            _ if types.centre(a) == Some("Cb")
-                && types.centre(b) == Some("Cb")
+            _ if types.centre(a) == Some(AtomType::Cb)
+                && types.centre(b) == Some(AtomType::Cb)
                 && bond.aromatic =>
             {
                 let substituent = |x: NodeIndex, other: NodeIndex| {
@@ -240,13 +240,15 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
                     if same_ring(sa, sb) {
                         continue;
                     }
-                    let name = ortho_name(types.ligand_name(sa), types.ligand_name(sb));
+                    let name = ortho_name(types.ligand_type(sa), types.ligand_type(sb));
                     let fallback = (name != "ortho").then_some("ortho");
                     out.add(&name, fallback, 1);
                 }
             }
             BondOrder::Double
-                if !in_ring && types.centre(a) == Some("Cd") && types.centre(b) == Some("Cd") =>
+                if !in_ring
+                    && types.centre(a) == Some(AtomType::Cd)
+                    && types.centre(b) == Some(AtomType::Cd) =>
             {
                 count_cis(p, types, a, b, &mut out);
             }
@@ -294,7 +296,7 @@ fn count_vicinal_halogens(
     b: NodeIndex,
     out: &mut Interactions,
 ) {
-    let halogens = |x: NodeIndex| -> Vec<&'static str> {
+    let halogens = |x: NodeIndex| -> Vec<AtomType> {
         p.mol
             .neighbours(x)
             .filter(|(n, _)| {
@@ -303,13 +305,13 @@ fn count_vicinal_halogens(
                     Element::F | Element::CL | Element::BR | Element::I
                 )
             })
-            .map(|(n, _)| types.ligand_name(n))
+            .map(|(n, _)| types.ligand_type(n))
             .collect()
     };
     let (on_a, on_b) = (halogens(a), halogens(b));
     for x in &on_a {
         for y in on_b.iter().filter(|y| *y == x) {
-            let name = super::key::GroupKey::new("vicinal", &[x, y]).to_string();
+            let name = format!("vicinal-{}", ligand_notation(&[*x, *y]));
             out.add(&name, None, 1);
         }
     }
@@ -418,8 +420,8 @@ fn cis_pair_name(
     } else {
         // Benson's cis value is for alkyl pairs; a polar pair (cis-1,2-dichloroethene is
         // the more stable isomer) gets a correction of its own or none.
-        let key = super::key::GroupKey::new("cis", &[types.ligand_name(x), types.ligand_name(y)]);
-        (key.to_string(), None)
+        let pair = [types.ligand_type(x), types.ligand_type(y)];
+        (format!("cis-{}", ligand_notation(&pair)), None)
     }
 }
 

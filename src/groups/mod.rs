@@ -9,4 +9,4 @@ pub mod ring_match;
 pub mod table;
 pub mod typing;
 
-pub use key::GroupKey;
+pub use key::{AtomType, GroupKey};

@@ -3,17 +3,18 @@
 
 use petgraph::graph::NodeIndex;
 
+use super::key::AtomType;
 use crate::molecule::{BondOrder, Element, PerceivedMolecule};
 
 /// The role an atom plays in Benson's scheme.
 #[derive(Debug, Clone, PartialEq, Eq)]
 pub enum AtomRole {
     /// The atom is the centre of a group of this type (`C`, `Cd`, `CO`, `O`, `NO2`, ...).
-    Centre(&'static str),
+    Centre(AtomType),
     /// The atom belongs to the group of the atom given (carbonyl O, nitrile N, nitro O, S=O O).
     Absorbed(NodeIndex),
-    /// A monovalent ligand with no group of its own (hydrogen node, halogen): named so.
-    Ligand(&'static str),
+    /// A monovalent ligand with no group of its own (hydrogen node, halogen): typed so.
+    Ligand(AtomType),
 }
 
 /// Why an atom has no Benson type.
@@ -34,29 +35,29 @@ pub struct AtomTypes {
 
 impl AtomTypes {
     /// The group-centre type of `atom`, if it is a centre.
-    pub fn centre(&self, atom: NodeIndex) -> Option<&'static str> {
+    pub fn centre(&self, atom: NodeIndex) -> Option<AtomType> {
         match self.roles[atom.index()] {
             AtomRole::Centre(t) => Some(t),
             _ => None,
         }
     }
 
-    /// The name `atom` has when it is a ligand of a neighbouring centre: its centre type,
-    /// its halogen/hydrogen name, or (for an absorbed atom) the type of its owner.
-    pub fn ligand_name(&self, atom: NodeIndex) -> &'static str {
+    /// The type `atom` has when it is a ligand of a neighbouring centre: its centre type,
+    /// its halogen/hydrogen type, or (for an absorbed atom) the type of its owner.
+    pub fn ligand_type(&self, atom: NodeIndex) -> AtomType {
         match &self.roles[atom.index()] {
-            AtomRole::Centre(t) | AtomRole::Ligand(t) => t,
-            AtomRole::Absorbed(owner) => self.ligand_name(*owner),
+            AtomRole::Centre(t) | AtomRole::Ligand(t) => *t,
+            AtomRole::Absorbed(owner) => self.ligand_type(*owner),
         }
     }
 }
 
-fn halogen_name(e: Element) -> Option<&'static str> {
+fn halogen_type(e: Element) -> Option<AtomType> {
     match e.atomic_number() {
-        9 => Some("F"),
-        17 => Some("Cl"),
-        35 => Some("Br"),
-        53 => Some("I"),
+        9 => Some(AtomType::F),
+        17 => Some(AtomType::Cl),
+        35 => Some(AtomType::Br),
+        53 => Some(AtomType::I),
         _ => None,
     }
 }
@@ -161,13 +162,13 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
             6 if a.charge == 0 => {
                 if let [o] = mb.double_to_o[..] {
                     roles[o.index()] = Some(AtomRole::Absorbed(i));
-                    roles[i.index()] = Some(AtomRole::Centre("CO"));
+                    roles[i.index()] = Some(AtomRole::Centre(AtomType::CO));
                 } else if let [n] = mb.triple_to_n[..] {
                     roles[n.index()] = Some(AtomRole::Absorbed(i));
-                    roles[i.index()] = Some(AtomRole::Centre("CN"));
+                    roles[i.index()] = Some(AtomRole::Centre(AtomType::CN));
                 } else if let [s] = mb.double_to_s[..] {
                     roles[s.index()] = Some(AtomRole::Absorbed(i));
-                    roles[i.index()] = Some(AtomRole::Centre("CS"));
+                    roles[i.index()] = Some(AtomRole::Centre(AtomType::CS));
                 }
             }
             7 if is_nitro_nitrogen(p, i) => {
@@ -176,17 +177,17 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
                         roles[o.index()] = Some(AtomRole::Absorbed(i));
                     }
                 }
-                roles[i.index()] = Some(AtomRole::Centre("NO2"));
+                roles[i.index()] = Some(AtomRole::Centre(AtomType::NO2));
             }
             7 if a.charge == 0 && mb.double_to_o.len() == 1 && p.mol.degree(i) == 2 => {
                 // Nitroso / nitrite nitrogen: -N=O as one unit.
                 roles[mb.double_to_o[0].index()] = Some(AtomRole::Absorbed(i));
-                roles[i.index()] = Some(AtomRole::Centre("NO"));
+                roles[i.index()] = Some(AtomRole::Centre(AtomType::NO));
             }
             16 if a.charge == 0 && !mb.double_to_o.is_empty() => {
                 let kind = match mb.double_to_o.len() {
-                    1 => "SO",
-                    2 => "SO2",
+                    1 => AtomType::SO,
+                    2 => AtomType::SO2,
                     _ => return Err(untyped(i, "sulfur with three S=O bonds has no group")),
                 };
                 for o in &mb.double_to_o {
@@ -204,17 +205,17 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
         }
         let a = mol.atom(i);
         if a.element == Element::H {
-            roles[i.index()] = Some(AtomRole::Ligand("H"));
+            roles[i.index()] = Some(AtomRole::Ligand(AtomType::H));
             continue;
         }
-        if let Some(name) = halogen_name(a.element) {
+        if let Some(halogen) = halogen_type(a.element) {
             if a.charge != 0 || mol.degree(i) + a.hydrogens as usize != 1 {
                 return Err(untyped(
                     i,
                     "halogen that is not a single monovalent substituent",
                 ));
             }
-            roles[i.index()] = Some(AtomRole::Ligand(name));
+            roles[i.index()] = Some(AtomRole::Ligand(halogen));
             continue;
         }
         if a.charge != 0 {
@@ -228,23 +229,23 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
             6 => {
                 let six = aromatic_six_ring_count(p, i);
                 if six >= 2 {
-                    "Cbf"
+                    AtomType::Cbf
                 } else if six == 1 {
-                    "Cb"
+                    AtomType::Cb
                 } else if mb.double_to_c.len() == 2 {
-                    "Ca"
+                    AtomType::Ca
                 } else if mb.triple_to_c == 1 {
-                    "Ct"
+                    AtomType::Ct
                 } else if mb.double_to_c.len() == 1 {
-                    "Cd"
+                    AtomType::Cd
                 } else if mb.double_to_n.len() == 1 {
-                    "CI"
+                    AtomType::CI
                 } else if mb.double_to_c.is_empty()
                     && mb.double_to_n.is_empty()
                     && mb.triple_to_c == 0
                     && mb.triple_to_n.is_empty()
                 {
-                    "C"
+                    AtomType::C
                 } else {
                     return Err(untyped(i, "carbon with a bonding pattern the tables lack"));
                 }
@@ -253,7 +254,7 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
                 if mol.bond_valence(i) + a.hydrogens as u32 != 2 || !mb.double_to_c.is_empty() {
                     return Err(untyped(i, "oxygen that is not divalent and singly bonded"));
                 }
-                "O"
+                AtomType::O
             }
             7 => {
                 let valence = mol.bond_valence(i) + a.hydrogens as u32;
@@ -261,14 +262,14 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
                     return Err(untyped(i, "nitrogen that is not trivalent"));
                 }
                 if in_aromatic_six_ring(p, i) {
-                    "NA"
+                    AtomType::NA
                 } else if mb.double_to_c.len() == 1 {
-                    "NI"
+                    AtomType::NI
                 } else if mb.double_to_c.is_empty()
                     && mb.double_to_n.is_empty()
                     && mb.triple_to_c == 0
                 {
-                    "N"
+                    AtomType::N
                 } else {
                     return Err(untyped(
                         i,
@@ -281,7 +282,7 @@ pub fn type_atoms(p: &PerceivedMolecule) -> Result<AtomTypes, UntypedAtom> {
                 if valence != 2 || !mb.double_to_c.is_empty() {
                     return Err(untyped(i, "sulfur that is not a divalent sulfide or thiol"));
                 }
-                "S"
+                AtomType::S
             }
             _ => {
                 return Err(untyped(

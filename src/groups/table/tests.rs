@@ -152,6 +152,14 @@ fn bad_key_duplicate_and_unknown_field_are_rejected() {
     );
     let msg = error_text(&twice);
     assert!(msg.contains("defined twice (first at line 7)"), "{msg}");
+    let msg = error_text(&format!(
+        "{META_KCAL}{}",
+        METHYL.replace("C-(C)(H)3", "C-(Si)(H)3")
+    ));
+    assert!(
+        msg.contains(":7: group \"C-(Si)(H)3\": group key `C-(Si)(H)3`: unknown ligand type `Si`"),
+        "{msg}"
+    );
     let msg = error_text(&format!("{META_KCAL}{}", METHYL.replace("unc_s", "unc_S")));
     assert!(msg.contains("unc_S"), "{msg}");
 }
