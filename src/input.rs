@@ -6,6 +6,7 @@
 //! Blank lines and lines starting with `#` are skipped. Every other line becomes a record, so every such line
 //! yields one output row (a result or an error).
 
+use crate::molecule::symmetry::SymmetryOverride;
 use std::io::BufRead;
 
 /// Where a record came from, for error messages.
@@ -34,14 +35,14 @@ pub struct InputRecord {
     pub name: Option<String>,
     /// A symmetry number given on the line as `sigma=N`, with `optical=N` (default 1): it
     /// replaces the one computed from the graph for this molecule only.
-    pub symmetry: Option<(u64, u8)>,
+    pub symmetry: Option<SymmetryOverride>,
     /// A problem with the line's `sigma=` / `optical=` words, reported as the record's error.
     pub problem: Option<String>,
 }
 
 /// Takes `sigma=N` and `optical=N` words out of a name; returns the rest, the override and any
 /// problem with those words.
-fn take_symmetry(name: &str) -> (String, Option<(u64, u8)>, Option<String>) {
+fn take_symmetry(name: &str) -> (String, Option<SymmetryOverride>, Option<String>) {
     let mut rest = Vec::new();
     let (mut sigma, mut optical, mut problem) = (None, None, None);
     for word in name.split_whitespace() {
@@ -62,11 +63,15 @@ fn take_symmetry(name: &str) -> (String, Option<(u64, u8)>, Option<String>) {
     if optical.is_some() && sigma.is_none() && problem.is_none() {
         problem = Some("`optical=` needs `sigma=` on the same line".to_string());
     }
-    (
-        rest.join(" "),
-        sigma.map(|s| (s, optical.unwrap_or(1))),
-        problem,
-    )
+    let user = match sigma.map(|s| SymmetryOverride::new(s, optical.unwrap_or(1))) {
+        Some(Ok(u)) => Some(u),
+        Some(Err(e)) => {
+            problem.get_or_insert(e.to_string());
+            None
+        }
+        None => None,
+    };
+    (rest.join(" "), user, problem)
 }
 
 /// Reading the input failed (the file could not be read at all).
@@ -182,7 +187,7 @@ mod tests {
         let text = "C1CCCCC1 cyclohexane chair sigma=6\nCC x optical=2\nCC sigma=0\n";
         let recs = read_records(text.as_bytes(), "t.smi").unwrap();
         assert_eq!(recs[0].name.as_deref(), Some("cyclohexane chair"));
-        assert_eq!(recs[0].symmetry, Some((6, 1)));
+        assert_eq!(recs[0].symmetry, SymmetryOverride::new(6, 1).ok());
         assert!(recs[1].problem.is_some() && recs[2].problem.is_some());
     }
 }

@@ -128,15 +128,31 @@ fn ring_convention_and_override() {
     assert!(cyclohexane.notes.iter().any(|n| n.contains("chair")));
     let mol = parse_smiles("C1CCCCC1").unwrap();
     let options = SymmetryOptions {
-        user: Some(SymmetryOverride {
-            total: 6, // chair cyclohexane, D3d (recalled from memory)
-            external: None,
-            optical_isomers: 1,
-        }),
+        // chair cyclohexane, D3d (recalled from memory)
+        user: Some(SymmetryOverride::new(6, 1).unwrap()),
     };
     let chair = symmetry_number_with(&mol, &options);
     assert_eq!((chair.total, chair.optical_isomers), (6, 1));
     assert_eq!(chair.convention, SymmetryConvention::UserOverride);
+}
+
+/// A user sigma is checked: at least 1, and no more than the permutations of like atoms
+/// (methane: 4! x 1! = 24, so 2^64 - 1 is refused; it used to make S298 -115.8 J/(mol K)).
+#[test]
+fn override_is_bounded() {
+    assert!(SymmetryOverride::new(0, 1).is_err());
+    assert!(SymmetryOverride::new(1, 0).is_err());
+    let methane = parse_smiles("C").unwrap();
+    let huge = SymmetryOverride::new(u64::MAX, 1).unwrap();
+    assert!(huge.check_for(&methane).is_err());
+    assert!(SymmetryOverride::new(12, 1)
+        .unwrap()
+        .check_for(&methane)
+        .is_ok());
+    assert!(SymmetryOverride::new(12, 1)
+        .unwrap()
+        .with_external(5)
+        .is_err());
 }
 
 #[test]

@@ -1,5 +1,6 @@
 //! `ringheat estimate`: group-additivity thermochemistry of each molecule.
 
+use ringheat::molecule::symmetry::SymmetryOverride;
 use std::process::ExitCode;
 
 use clap::Args;
@@ -36,15 +37,19 @@ pub struct EstimateArgs {
 
 /// Runs the command.
 pub fn run(args: EstimateArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
-    if args.sigma == Some(0) || args.optical_isomers == Some(0) {
-        return Err("--sigma and --optical-isomers must be at least 1".into());
-    }
+    let symmetry_override = match args.sigma {
+        Some(s) => Some(
+            SymmetryOverride::new(s, args.optical_isomers.unwrap_or(1))
+                .map_err(|e| format!("--sigma/--optical-isomers: {e}"))?,
+        ),
+        None => None,
+    };
     let engine = args.tables.engine()?;
     if let Some(t) = args.at.iter().find(|t| !(298.15..=1500.0).contains(*t)) {
         return Err(format!("--at {t}: temperatures must lie in 298.15..1500 K").into());
     }
     let options = EstimateOptions {
-        symmetry_override: args.sigma.map(|s| (s, args.optical_isomers.unwrap_or(1))),
+        symmetry_override,
         ..EstimateOptions::default()
     };
     let unit = if args.kcal {

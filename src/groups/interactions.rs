@@ -61,6 +61,14 @@ pub enum InteractionNote {
         /// The cis corrections of the arrangement taken (empty: E, no cis pair).
         cis_pairs: Vec<String>,
     },
+    /// A double bond written trans across a ring of nine or more atoms: the ring corrections
+    /// are those of the cis ring, so the extra strain of the trans ring is not counted.
+    TransRingDoubleBond {
+        /// 1-based input numbers of the two double-bond atoms.
+        atoms: [usize; 2],
+        /// Size of the smallest ring holding the bond.
+        ring_size: usize,
+    },
 }
 
 impl std::fmt::Display for InteractionNote {
@@ -83,6 +91,15 @@ impl std::fmt::Display for InteractionNote {
                  as the arrangement with cis pair(s) {} (rule: fewest and mildest cis pairs, \
                  then the heavier substituents trans)",
                 cis_pairs.join(", ")
+            ),
+            InteractionNote::TransRingDoubleBond {
+                atoms: [a, b],
+                ring_size,
+            } => write!(
+                f,
+                "double bond between atoms {a} and {b} is trans in a ring of {ring_size} atoms: \
+                 the ring correction is that of the cis ring (the extra strain of the trans ring \
+                 is not counted)"
             ),
         }
     }
@@ -178,6 +195,16 @@ fn ortho_name(x: AtomType, y: AtomType) -> String {
 pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interactions {
     let mol = &p.mol;
     let mut out = Interactions::default();
+    for t in trans_ring_double_bonds(p) {
+        match t.ring_size {
+            // Smaller rings are refused before counting (see `TransRingBond`).
+            7 | 8 => out.add(&trans_ring_correction(t.ring_size), None, 1),
+            _ => out.notes.push(InteractionNote::TransRingDoubleBond {
+                atoms: t.atoms,
+                ring_size: t.ring_size,
+            }),
+        }
+    }
     for e in mol.graph.edge_indices() {
         let Some((a, b)) = mol.graph.edge_endpoints(e) else {
             continue;
@@ -285,6 +312,62 @@ pub fn count_interactions(p: &PerceivedMolecule, types: &AtomTypes) -> Interacti
     }
     out.add("1,5-interaction", None, one_five);
     out.add("1,5-interaction-(O)", None, one_five_oxygen);
+    out
+}
+
+/// A ring double bond whose input geometry puts the ring's two continuations on opposite
+/// sides (trans-cyclooctene `C1CCC/C=C/CC1`). In a ring of fewer than 7 atoms it cannot exist;
+/// rings of 7 and 8 atoms take the correction [`trans_ring_correction`] (refused when the tables
+/// lack it); larger rings are noted.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct TransRingBond {
+    /// 1-based input numbers of the two double-bond atoms.
+    pub atoms: [usize; 2],
+    /// Size of the smallest ring holding the bond.
+    pub ring_size: usize,
+}
+
+/// Name of the correction for a trans double bond in a ring of `ring_size` atoms.
+pub fn trans_ring_correction(ring_size: usize) -> String {
+    format!("trans-ring-({ring_size})")
+}
+
+/// The trans ring double bonds of `p` (non-aromatic double bonds in a ring, written trans).
+pub fn trans_ring_double_bonds(p: &PerceivedMolecule) -> Vec<TransRingBond> {
+    let mol = &p.mol;
+    let mut out = Vec::new();
+    for e in mol.graph.edge_indices() {
+        let bond = &mol.graph[e];
+        if bond.order != BondOrder::Double || bond.aromatic || !p.rings.is_ring_bond(e) {
+            continue;
+        }
+        let Some((a, b)) = mol.graph.edge_endpoints(e) else {
+            continue;
+        };
+        let Some(ring) = p
+            .rings
+            .rings
+            .iter()
+            .filter(|r| r.contains_bond(e))
+            .min_by_key(|r| r.size())
+        else {
+            continue;
+        };
+        let along = |x: NodeIndex, other: NodeIndex| {
+            mol.neighbours(x)
+                .map(|(n, _)| n)
+                .find(|&n| n != other && ring.contains_atom(n))
+        };
+        let (Some(ra), Some(rb)) = (along(a, b), along(b, a)) else {
+            continue;
+        };
+        if double_bond_geometry(p, a, ra, b, rb) == Some(false) {
+            out.push(TransRingBond {
+                atoms: [p.input_atom_number(a), p.input_atom_number(b)],
+                ring_size: ring.size(),
+            });
+        }
+    }
     out
 }
 

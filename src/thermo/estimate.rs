@@ -12,11 +12,13 @@ use super::quantity::Quantity;
 use super::terms::{hf298_sums, s298_cp_sums};
 pub use super::terms::{StepTerms, Term, TermKind, TermNote};
 use crate::groups::assign::{assign_groups, stand_in_candidates, GroupAssignment};
-use crate::groups::interactions::count_interactions;
+use crate::groups::interactions::{
+    count_interactions, trans_ring_correction, trans_ring_double_bonds,
+};
 use crate::groups::ring_corrections::{RingCorrectionIndex, RingMatch, RingPatternError};
 use crate::groups::table::{GroupTables, TableError, ThermoIncrement, CP_TEMPERATURES_K};
 use crate::groups::GroupKey;
-use crate::molecule::symmetry::symmetry_number;
+use crate::molecule::symmetry::{symmetry_number, SymmetryOverride, SymmetryOverrideError};
 use crate::molecule::PerceivedMolecule;
 use crate::units::GAS_CONSTANT_J_PER_MOL_K;
 
@@ -57,7 +59,7 @@ fn graph_symmetry(p: &PerceivedMolecule) -> SymmetryUsed {
 #[derive(Debug, Clone, Copy, Default)]
 pub struct EstimateOptions {
     /// Symmetry number and optical-isomer count given by the user instead of the graph's.
-    pub symmetry_override: Option<(u64, u8)>,
+    pub symmetry_override: Option<SymmetryOverride>,
     /// No stand-ins: a missing group or ring system is an error (used to derive table values).
     pub strict: bool,
 }
@@ -89,6 +91,35 @@ pub enum EstimateError {
     /// No atoms, or several disconnected molecules.
     #[error("{0}")]
     NotOneMolecule(String),
+    /// A double bond written trans in a ring too small to hold one.
+    #[error(
+        "trans double bond between atoms {} and {} in a ring of {ring_size} atoms: no such \
+         molecule (a ring of fewer than 7 atoms cannot hold a trans double bond)",
+        .atoms[0], .atoms[1]
+    )]
+    ImpossibleTransRing {
+        /// 1-based input numbers of the double-bond atoms.
+        atoms: [usize; 2],
+        /// Size of the smallest ring holding the bond.
+        ring_size: usize,
+    },
+    /// A trans double bond in a 7- or 8-membered ring whose extra strain the tables lack.
+    #[error(
+        "trans double bond between atoms {} and {} in a ring of {ring_size} atoms: the tables \
+         have no `{correction}` correction for its extra strain, so no estimate is given",
+        .atoms[0], .atoms[1]
+    )]
+    TransRingNotCovered {
+        /// 1-based input numbers of the double-bond atoms.
+        atoms: [usize; 2],
+        /// Size of the smallest ring holding the bond.
+        ring_size: usize,
+        /// The correction that would price it.
+        correction: String,
+    },
+    /// The user's symmetry number cannot be this molecule's.
+    #[error("symmetry override: {0}")]
+    SymmetryOverride(#[from] SymmetryOverrideError),
 }
 
 /// A group the tables lack, how often it occurs, and the first atom that is its centre.
@@ -177,11 +208,12 @@ impl GroupAdditivity {
         options: &EstimateOptions,
     ) -> Result<ThermoEstimate, EstimateError> {
         check_one_molecule(p)?;
+        self.check_trans_rings(p)?;
         let assignment = assign(p)?;
         let mut steps = self.group_terms(p, &assignment, options)?;
         steps.extend(self.correction_terms(p, &assignment, options)?);
         steps.extend(self.ring_terms(p, options)?);
-        let (symmetry, overridden) = symmetry_used(p, options);
+        let (symmetry, overridden) = symmetry_used(p, options)?;
         Ok(total(steps, symmetry, overridden))
     }
 
@@ -351,7 +383,13 @@ impl GroupAdditivity {
                 } else {
                     entry.values
                 };
-                let shift_j = self.ring_index.entropy_shift_j(i);
+                // The shift puts the parent's real-symmetry entropy on the flat-graph
+                // convention; a user's sigma is a real symmetry number, so it takes none.
+                let shift_j = if options.symmetry_override.is_some() {
+                    0.0
+                } else {
+                    self.ring_index.entropy_shift_j(i)
+                };
                 values.s_j += shift_j;
                 let mut notes = Vec::new();
                 if stand_in {
@@ -383,6 +421,31 @@ impl GroupAdditivity {
     }
 }
 
+impl GroupAdditivity {
+    /// Refuses trans double bonds in rings of fewer than 7 atoms (impossible) and in rings of 7
+    /// or 8 atoms whose correction the tables lack (the cis ring's correction would understate
+    /// the strain by several kcal/mol).
+    fn check_trans_rings(&self, p: &PerceivedMolecule) -> Result<(), EstimateError> {
+        for t in trans_ring_double_bonds(p) {
+            if t.ring_size < 7 {
+                return Err(EstimateError::ImpossibleTransRing {
+                    atoms: t.atoms,
+                    ring_size: t.ring_size,
+                });
+            }
+            let correction = trans_ring_correction(t.ring_size);
+            if t.ring_size <= 8 && self.tables.correction(&correction).is_none() {
+                return Err(EstimateError::TransRingNotCovered {
+                    atoms: t.atoms,
+                    ring_size: t.ring_size,
+                    correction,
+                });
+            }
+        }
+        Ok(())
+    }
+}
+
 /// Refuses an empty input and several disconnected molecules.
 fn check_one_molecule(p: &PerceivedMolecule) -> Result<(), EstimateError> {
     if p.mol.atom_count() == 0 {
@@ -411,19 +474,26 @@ fn assign(p: &PerceivedMolecule) -> Result<GroupAssignment, EstimateError> {
 
 /// The symmetry for the entropy: the user's (the graph is then not searched at all) or the
 /// graph's; true when it is the user's.
-fn symmetry_used(p: &PerceivedMolecule, options: &EstimateOptions) -> (SymmetryUsed, bool) {
+fn symmetry_used(
+    p: &PerceivedMolecule,
+    options: &EstimateOptions,
+) -> Result<(SymmetryUsed, bool), EstimateError> {
     match options.symmetry_override {
-        Some((sigma, n)) => (
-            SymmetryUsed {
-                total: sigma.max(1),
-                external: sigma.max(1),
-                internal: 1,
-                optical_isomers: n.max(1),
-                notes: vec!["symmetry number and optical isomers given by the user".into()],
-            },
-            true,
-        ),
-        None => (graph_symmetry(p), false),
+        Some(user) => {
+            user.check_for(&p.mol)?;
+            let info = user.info();
+            Ok((
+                SymmetryUsed {
+                    total: info.total,
+                    external: info.external,
+                    internal: info.internal,
+                    optical_isomers: info.optical_isomers,
+                    notes: info.notes,
+                },
+                true,
+            ))
+        }
+        None => Ok((graph_symmetry(p), false)),
     }
 }
 

@@ -50,15 +50,107 @@ pub enum SymmetryConvention {
     UserOverride,
 }
 
-/// A symmetry number and optical isomer count supplied by the user for one molecule.
+/// A symmetry number and optical isomer count supplied by the user, checked on construction:
+/// sigma and n are at least 1, and the external part (if given) divides sigma. The one type
+/// for `--sigma`, the `sigma=` words of an input file and the library.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
 pub struct SymmetryOverride {
-    /// Total symmetry number sigma (external x internal); 0 is read as 1.
-    pub total: u64,
-    /// External part, if known; internal is then `total / external`.
-    pub external: Option<u64>,
-    /// Number of optical isomers n (1 or 2, or more for mixtures of stereoisomers).
-    pub optical_isomers: u8,
+    total: u64,
+    external: Option<u64>,
+    optical_isomers: u8,
+}
+
+/// A user symmetry value that cannot be a symmetry number.
+#[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
+pub enum SymmetryOverrideError {
+    /// sigma = 0.
+    #[error("sigma must be a whole number >= 1")]
+    ZeroSigma,
+    /// n = 0.
+    #[error("the number of optical isomers must be a whole number >= 1")]
+    ZeroOpticalIsomers,
+    /// The external part does not divide sigma.
+    #[error("the external symmetry number {external} does not divide sigma = {total}")]
+    ExternalNotADivisor { total: u64, external: u64 },
+    /// More symmetry operations than the molecule's like atoms can be permuted in.
+    #[error(
+        "sigma = {sigma} is larger than the {bound} permutations of the molecule's like atoms \
+         (a symmetry operation permutes like atoms, so sigma cannot exceed their count)"
+    )]
+    TooLarge { sigma: u64, bound: u128 },
+}
+
+impl SymmetryOverride {
+    /// A user symmetry number `sigma` (external x internal) and optical isomer count `n`.
+    pub fn new(sigma: u64, optical_isomers: u8) -> Result<SymmetryOverride, SymmetryOverrideError> {
+        if sigma == 0 {
+            return Err(SymmetryOverrideError::ZeroSigma);
+        }
+        if optical_isomers == 0 {
+            return Err(SymmetryOverrideError::ZeroOpticalIsomers);
+        }
+        Ok(SymmetryOverride {
+            total: sigma,
+            external: None,
+            optical_isomers,
+        })
+    }
+
+    /// The same with the external part given (the internal part is then sigma / external).
+    pub fn with_external(self, external: u64) -> Result<SymmetryOverride, SymmetryOverrideError> {
+        if external == 0 || !self.total.is_multiple_of(external) {
+            return Err(SymmetryOverrideError::ExternalNotADivisor {
+                total: self.total,
+                external,
+            });
+        }
+        Ok(SymmetryOverride {
+            external: Some(external),
+            ..self
+        })
+    }
+
+    /// Total symmetry number sigma.
+    pub fn sigma(&self) -> u64 {
+        self.total
+    }
+
+    /// Number of optical isomers n.
+    pub fn optical_isomers(&self) -> u8 {
+        self.optical_isomers
+    }
+
+    /// Checks the value against `mol`: every symmetry operation permutes like atoms (same
+    /// element, hydrogens included), so sigma is at most the product of the factorials of the
+    /// element counts. Refuses methane with sigma = 2^64 - 1.
+    pub fn check_for(&self, mol: &Molecule) -> Result<(), SymmetryOverrideError> {
+        let bound = like_atom_permutations(mol);
+        if u128::from(self.total) > bound {
+            return Err(SymmetryOverrideError::TooLarge {
+                sigma: self.total,
+                bound,
+            });
+        }
+        Ok(())
+    }
+
+    /// The symmetry information this override stands for.
+    pub fn info(&self) -> SymmetryInfo {
+        from_override(*self)
+    }
+}
+
+/// Product over elements of (number of atoms of that element)!, hydrogens counted, saturating.
+fn like_atom_permutations(mol: &Molecule) -> u128 {
+    let mut counts: std::collections::BTreeMap<u8, u64> = std::collections::BTreeMap::new();
+    for a in mol.atoms() {
+        let atom = mol.atom(a);
+        *counts.entry(atom.element.atomic_number()).or_default() += 1;
+        *counts.entry(1).or_default() += u64::from(atom.hydrogens);
+    }
+    counts.values().fold(1u128, |acc, &n| {
+        (2..=u128::from(n)).fold(acc, |a, k| a.saturating_mul(k))
+    })
 }
 
 /// Options for [`symmetry_number_with`].
@@ -260,10 +352,7 @@ fn plain(
 
 fn from_override(user: SymmetryOverride) -> SymmetryInfo {
     let total = user.total.max(1);
-    let external = user
-        .external
-        .filter(|&e| e > 0 && total.is_multiple_of(e))
-        .unwrap_or(total);
+    let external = user.external.unwrap_or(total);
     SymmetryInfo {
         external,
         internal: total / external,
