@@ -2,9 +2,14 @@
 
 pub mod estimate;
 pub mod flags;
+mod linear_solve;
+pub mod modes;
+pub mod nasa;
+pub mod polynomials;
 pub mod quantity;
 pub mod temperature;
 pub mod terms;
+pub mod wilhoit;
 
 pub use estimate::{EstimateError, EstimateOptions, GroupAdditivity, ThermoEstimate};
 pub use flags::{Flag, FlagCategory, Property};
