@@ -1,6 +1,8 @@
 //! Reports: turns results into tables, JSON or CSV; every input record becomes one row.
 
+pub mod cantera_yaml;
 pub mod computed;
+pub mod polynomials;
 pub mod reactions;
 pub mod strain;
 pub mod structure;

@@ -21,15 +21,17 @@ pub fn solve(mut a: Vec<Vec<f64>>, mut b: Vec<f64>) -> Option<Vec<f64>> {
         }
         a.swap(col, pivot);
         b.swap(col, pivot);
-        for row in col + 1..n {
-            let f = a[row][col] / a[col][col];
+        let (upper, lower) = a.split_at_mut(col + 1);
+        let pivot_row = &upper[col];
+        for (offset, row) in lower.iter_mut().enumerate() {
+            let f = row[col] / pivot_row[col];
             if f == 0.0 {
                 continue;
             }
-            for k in col..n {
-                a[row][k] -= f * a[col][k];
+            for (x, p) in row[col..].iter_mut().zip(&pivot_row[col..]) {
+                *x -= f * p;
             }
-            b[row] -= f * b[col];
+            b[col + 1 + offset] -= f * b[col];
         }
     }
     let mut x = vec![0.0; n];
@@ -62,21 +64,21 @@ pub fn constrained_least_squares(
     let mut kkt = vec![vec![0.0; n + m]; n + m];
     let mut rhs = vec![0.0; n + m];
     for eq in equations {
-        for i in 0..n {
-            let wi = eq.weight * eq.row[i];
+        for (i, &ri) in eq.row.iter().enumerate().take(n) {
+            let wi = eq.weight * ri;
             if wi == 0.0 {
                 continue;
             }
-            for j in 0..n {
-                kkt[i][j] += wi * eq.row[j];
+            for (cell, &rj) in kkt[i].iter_mut().zip(eq.row.iter()).take(n) {
+                *cell += wi * rj;
             }
             rhs[i] += wi * eq.target;
         }
     }
     for (k, (c, d)) in constraints.iter().enumerate() {
-        for j in 0..n {
-            kkt[n + k][j] = c[j];
-            kkt[j][n + k] = c[j];
+        for (j, &cj) in c.iter().enumerate().take(n) {
+            kkt[n + k][j] = cj;
+            kkt[j][n + k] = cj;
         }
         rhs[n + k] = *d;
     }
@@ -92,11 +94,7 @@ mod tests {
 
     #[test]
     fn solves_a_small_system() {
-        let x = solve(
-            vec![vec![2.0, 1.0], vec![1.0, 3.0]],
-            vec![3.0, 5.0],
-        )
-        .unwrap();
+        let x = solve(vec![vec![2.0, 1.0], vec![1.0, 3.0]], vec![3.0, 5.0]).unwrap();
         assert!((x[0] - 0.8).abs() < 1e-12 && (x[1] - 1.4).abs() < 1e-12);
         assert!(solve(vec![vec![1.0, 2.0], vec![2.0, 4.0]], vec![1.0, 2.0]).is_none());
     }

@@ -11,8 +11,8 @@
 
 use petgraph::visit::EdgeRef;
 
-use super::quantity::GAS_CONSTANT;
 use crate::molecule::{BondOrder, Molecule, PerceivedMolecule};
+use crate::units::GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT;
 use petgraph::graph::NodeIndex;
 
 /// Counts that fix Cp(0) and Cp(infinity).

@@ -10,7 +10,7 @@
 //! Cp, H and S together, with the anchors and the joins as exact constraints.
 
 use super::linear_solve::{constrained_least_squares, Equation};
-use super::quantity::{GAS_CONSTANT, T_REF_K};
+use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 
 /// Scale of the temperature inside the fit (T/1000), which keeps the normal equations well
 /// conditioned; the coefficients are converted back to kelvin afterwards.
@@ -47,7 +47,7 @@ impl NasaRanges {
             t_mid_k: mid,
             t_high_k: hi,
         } = *self;
-        if !(lo.is_finite() && mid.is_finite() && hi.is_finite()) || !(lo < mid && mid < hi) {
+        if !(lo.is_finite() && mid.is_finite() && hi.is_finite() && lo < mid && mid < hi) {
             return Err(NasaError::BadRanges(format!(
                 "temperatures {lo}, {mid}, {hi} K must rise strictly"
             )));
@@ -195,6 +195,8 @@ pub struct Sample {
     pub h_kj: f64,
     /// S, J/(mol K).
     pub s_j: f64,
+    /// Weight of the sample's three rows.
+    pub weight: f64,
 }
 
 /// Rows of Cp/R, H/(RT) and S/R in the scaled coefficients c (c_k = a_k 1000^(k-1) for k
@@ -229,11 +231,13 @@ fn scaled_rows(t_k: f64, offset: usize) -> [Vec<f64>; 3] {
     [cp, h, s]
 }
 
-/// Fits the pair of polynomials to `samples` (Cp, H and S rows of equal weight in the
-/// dimensionless forms Cp/R, H/(RT), S/R). H(298.15 K) = `hf298_kj` and S(298.15 K) =
-/// `s298_j` hold exactly, as do Cp, H and S at the common temperature (to rounding).
+/// Fits the pair of polynomials to `samples` (Cp, H and S rows in the dimensionless forms
+/// Cp/R, H/(RT), S/R, each with its sample's weight) and to `cp_points` (T K, Cp J/(mol K),
+/// weight: Cp rows only). H(298.15 K) = `hf298_kj` and S(298.15 K) = `s298_j` hold exactly, as
+/// do Cp, H and S at the common temperature (to rounding).
 pub fn fit_nasa7(
     samples: &[Sample],
+    cp_points: &[(f64, f64, f64)],
     ranges: NasaRanges,
     hf298_kj: f64,
     s298_j: f64,
@@ -252,7 +256,7 @@ pub fn fit_nasa7(
                 equations.push(Equation {
                     row,
                     target,
-                    weight: 1.0,
+                    weight: s.weight,
                 });
             }
         };
@@ -265,6 +269,20 @@ pub fn fit_nasa7(
             n_high += 1;
         }
     }
+    for &(t, cp, weight) in cp_points {
+        let in_low = t >= ranges.t_low_k - 1e-9 && t <= ranges.t_mid_k + 1e-9;
+        let in_high = t >= ranges.t_mid_k - 1e-9 && t <= ranges.t_high_k + 1e-9;
+        for (inside, offset) in [(in_low, 0), (in_high, 7)] {
+            if inside {
+                let [row, _, _] = scaled_rows(t, offset);
+                equations.push(Equation {
+                    row,
+                    target: cp / GAS_CONSTANT,
+                    weight,
+                });
+            }
+        }
+    }
     if n_low < 7 {
         return Err(NasaError::TooFewSamples("low"));
     }
@@ -275,7 +293,11 @@ pub fn fit_nasa7(
     let low = scaled_rows(ranges.t_mid_k, 0);
     let high = scaled_rows(ranges.t_mid_k, 7);
     let difference = |k: usize| -> Vec<f64> {
-        low[k].iter().zip(high[k].iter()).map(|(l, h)| l - h).collect()
+        low[k]
+            .iter()
+            .zip(high[k].iter())
+            .map(|(l, h)| l - h)
+            .collect()
     };
     let constraints = vec![
         (
@@ -303,7 +325,12 @@ pub fn fit_nasa7(
         high: unscale(&c[7..14]),
     };
     impose_exact_constraints(&mut fit, hf298_kj, s298_j);
-    if fit.low.iter().chain(fit.high.iter()).any(|v| !v.is_finite()) {
+    if fit
+        .low
+        .iter()
+        .chain(fit.high.iter())
+        .any(|v| !v.is_finite())
+    {
         return Err(NasaError::Singular);
     }
     Ok(fit)
@@ -337,10 +364,11 @@ mod tests {
                     cp_j: cp,
                     h_kj: hf + cp * (t - T_REF_K) / 1000.0,
                     s_j: s298 + cp * (t / T_REF_K).ln(),
+                    weight: 1.0,
                 }
             })
             .collect();
-        let fit = fit_nasa7(&samples, NasaRanges::default(), hf, s298).unwrap();
+        let fit = fit_nasa7(&samples, &[], NasaRanges::default(), hf, s298).unwrap();
         assert!((fit.h_kj(T_REF_K) - hf).abs() < 1e-10);
         assert!((fit.s_j(T_REF_K) - s298).abs() < 1e-10);
         for t in [200.0, 700.0, 1000.0, 2000.0, 3000.0] {

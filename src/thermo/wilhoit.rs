@@ -70,10 +70,10 @@ impl Wilhoit {
         const NODES: [f64; 3] = [
             0.238_619_186_083_196_9,
             0.661_209_386_466_264_5,
-            0.932_469_514_203_152_1,
+            0.932_469_514_203_152,
         ];
         const WEIGHTS: [f64; 3] = [
-            0.467_913_934_572_691_0,
+            0.467_913_934_572_691,
             0.360_761_573_048_138_6,
             0.171_324_492_379_170_4,
         ];
@@ -130,7 +130,7 @@ impl Wilhoit {
         {
             return Err(WilhoitError::BadPoint(t, c));
         }
-        if !(cp_inf_j >= cp0_j) {
+        if cp_inf_j.is_nan() || cp0_j.is_nan() || cp_inf_j < cp0_j {
             return Err(WilhoitError::BadLimits(cp_inf_j, cp0_j));
         }
         if cp_inf_j - cp0_j < 1e-9 {
