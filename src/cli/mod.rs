@@ -3,6 +3,7 @@
 mod check_computed;
 mod estimate;
 mod inputs;
+mod polynomials;
 mod reactions;
 mod strain;
 mod structure;
@@ -31,6 +32,8 @@ enum Command {
     Reactions(reactions::ReactionsArgs),
     /// Hf298 and strain of one molecule from a file of computed enthalpies for one CBH reaction.
     CheckComputed(check_computed::CheckComputedArgs),
+    /// NASA-7 polynomials of each molecule's estimate, as Cantera YAML species entries.
+    Polynomials(polynomials::PolynomialsArgs),
 }
 
 /// Runs the command line. Bad records become error rows; only unusable options or tables fail.
@@ -42,5 +45,6 @@ pub fn run() -> Result<ExitCode, Box<dyn std::error::Error>> {
         Command::Strain(args) => strain::run(args),
         Command::Reactions(args) => reactions::run(args),
         Command::CheckComputed(args) => check_computed::run(args),
+        Command::Polynomials(args) => polynomials::run(args),
     }
 }

@@ -100,17 +100,25 @@ pub fn note_lines(s: &ExportedSpecies, name_remark: Option<&str>) -> Vec<String>
         None => "n/a".to_string(),
     };
     let cp = match e.cp_j {
-        Some(cp) => format!(
-            "Cp at 300, 400, 500, 600, 800, 1000, 1500 K: {} J/(mol K), ± {:.2} to ± {:.2}",
-            cp.iter()
-                .map(|q| format!("{:.2}", q.value))
-                .collect::<Vec<_>>()
-                .join(", "),
-            cp.iter()
+        Some(cp) => {
+            let lo = cp
+                .iter()
                 .map(|q| q.uncertainty)
-                .fold(f64::INFINITY, f64::min),
-            cp.iter().map(|q| q.uncertainty).fold(0.0, f64::max)
-        ),
+                .fold(f64::INFINITY, f64::min);
+            let hi = cp.iter().map(|q| q.uncertainty).fold(0.0, f64::max);
+            let unc = if hi - lo < 0.005 {
+                format!("± {hi:.2}")
+            } else {
+                format!("± {lo:.2} to ± {hi:.2}")
+            };
+            format!(
+                "Cp at 300, 400, 500, 600, 800, 1000, 1500 K: {} J/(mol K), {unc}",
+                cp.iter()
+                    .map(|q| format!("{:.2}", q.value))
+                    .collect::<Vec<_>>()
+                    .join(", ")
+            )
+        }
         None => "Cp n/a".to_string(),
     };
     lines.push(format!(
@@ -172,7 +180,8 @@ pub fn note_lines(s: &ExportedSpecies, name_remark: Option<&str>) -> Vec<String>
     lines.push(format!(
         "NASA-7 fit over {}-{} and {}-{} K, H and S anchored to Hf298 and S298 exactly: largest \
          Cp deviation from the tabulated group values {:.3} % at {} K (Wilhoit curve {:.3} %); \
-         Cp, H, S within {:.3}, {:.4}, {:.4} % of the Wilhoit curve over the whole range.",
+         Cp, H, S within {:.3}, {:.4}, {:.4} % of the Wilhoit curve over 300-1500 K and {:.3}, \
+         {:.4}, {:.4} % over the whole range.",
         r.t_low_k,
         r.t_mid_k,
         r.t_mid_k,
@@ -180,6 +189,9 @@ pub fn note_lines(s: &ExportedSpecies, name_remark: Option<&str>) -> Vec<String>
         f.cp_deviation_pct,
         f.cp_deviation_at_k,
         f.wilhoit_cp_deviation_pct,
+        f.curve_deviation_tabulated.cp_pct,
+        f.curve_deviation_tabulated.h_pct,
+        f.curve_deviation_tabulated.s_pct,
         f.curve_deviation.cp_pct,
         f.curve_deviation.h_pct,
         f.curve_deviation.s_pct

@@ -229,3 +229,82 @@ pub fn render_fit_table(rows: &[Outcome<'_>]) -> String {
         super::SAFETY_NOTE
     )
 }
+
+/// Cp, H and S at one temperature from the NASA-7 pair and from ringheat's curve (the Wilhoit
+/// curve and its integrals), with the tabulated group Cp where the temperature is a table one.
+#[derive(Debug, Clone, Copy, PartialEq, serde::Serialize)]
+pub struct PolynomialState {
+    /// Temperature, K.
+    pub t_k: f64,
+    /// NASA-7 Cp, J/(mol K).
+    pub nasa_cp_j: f64,
+    /// NASA-7 H (formation scale), kJ/mol.
+    pub nasa_h_kj: f64,
+    /// NASA-7 S, J/(mol K).
+    pub nasa_s_j: f64,
+    /// Curve Cp, J/(mol K).
+    pub curve_cp_j: f64,
+    /// Curve H (formation scale), kJ/mol.
+    pub curve_h_kj: f64,
+    /// Curve S, J/(mol K).
+    pub curve_s_j: f64,
+    /// Group-additivity Cp at a table temperature, J/(mol K).
+    pub tabulated_cp_j: Option<f64>,
+}
+
+/// The states of `s` at `temps`.
+pub fn states_at(s: &ExportedSpecies, temps: &[f64]) -> Vec<PolynomialState> {
+    let f = &s.fit;
+    temps
+        .iter()
+        .map(|&t| {
+            let c = f.curve_at(t);
+            PolynomialState {
+                t_k: t,
+                nasa_cp_j: f.nasa.cp_j(t),
+                nasa_h_kj: f.nasa.h_kj(t),
+                nasa_s_j: f.nasa.s_j(t),
+                curve_cp_j: c.cp_j,
+                curve_h_kj: c.h_kj,
+                curve_s_j: c.s_j,
+                tabulated_cp_j: f
+                    .tabulated
+                    .cp_points
+                    .iter()
+                    .find(|(tt, _)| (tt - t).abs() < 1e-9)
+                    .map(|p| p.1),
+            }
+        })
+        .collect()
+}
+
+/// The JSON object of one record: the species with its Cantera name, fit and states at
+/// `temps`, or the error.
+pub fn json_row(
+    outcome: &Outcome<'_>,
+    cantera_name: Option<&str>,
+    temps: &[f64],
+) -> serde_json::Value {
+    let (place, input, result) = outcome;
+    match result {
+        Ok(s) => serde_json::json!({
+            "input": input,
+            "cantera_name": cantera_name,
+            "requested_name": s.requested_name,
+            "canonical_smiles": s.canonical_smiles,
+            "formula": s.formula,
+            "composition": s.composition,
+            "hf298_kj_per_mol": s.estimate.hf298_kj,
+            "s298_j_per_mol_k": s.estimate.s298_j,
+            "fit": s.fit,
+            "flags": s.estimate.flags.iter().map(|f| f.to_string())
+                .chain(s.fit.flags.iter().map(|f| f.to_string())).collect::<Vec<_>>(),
+            "states": states_at(s, temps),
+        }),
+        Err(e) => serde_json::json!({
+            "input": input,
+            "place": place.to_string(),
+            "error": e,
+        }),
+    }
+}

@@ -246,6 +246,8 @@ pub struct PolynomialFit {
     pub cp_deviation_at_k: f64,
     /// Deviations of the NASA-7 pair from the Wilhoit curve over the fitted range.
     pub curve_deviation: CurveDeviation,
+    /// The same over the tabulated temperatures' span only (300-1500 K).
+    pub curve_deviation_tabulated: CurveDeviation,
     /// Largest relative mismatch of Cp, H, S at the common temperature.
     pub join_mismatch: f64,
     /// Warnings about the extrapolation or the fit.
@@ -363,33 +365,23 @@ pub fn fit_polynomials(
         .collect();
     let nasa = fit_nasa7(&samples, &points, options.ranges, tab.hf298_kj, tab.s298_j)?;
 
-    let relative = |a: f64, b: f64| 100.0 * (a - b).abs() / b.abs();
     let wilhoit_cp_deviation_pct = tab
         .cp_points
         .iter()
-        .map(|&(t, cp)| relative(wilhoit.cp_j(t), cp))
+        .map(|&(t, cp)| relative_pct(wilhoit.cp_j(t), cp))
         .fold(0.0, f64::max);
     let (cp_deviation_pct, cp_deviation_at_k) = tab
         .cp_points
         .iter()
         .filter(|(t, _)| (options.ranges.t_low_k..=options.ranges.t_high_k).contains(t))
-        .map(|&(t, cp)| (relative(nasa.cp_j(t), cp), t))
+        .map(|&(t, cp)| (relative_pct(nasa.cp_j(t), cp), t))
         .fold((0.0, f64::NAN), |m, d| if d.0 > m.0 { d } else { m });
-    let mut curve_deviation = CurveDeviation {
-        cp_pct: 0.0,
-        h_pct: 0.0,
-        s_pct: 0.0,
-    };
-    for s in &states {
-        let h_scale = s.h_kj.abs().max(s.cp_j * s.t_k / 1000.0);
-        curve_deviation.cp_pct = curve_deviation
-            .cp_pct
-            .max(relative(nasa.cp_j(s.t_k), s.cp_j));
-        curve_deviation.h_pct = curve_deviation
-            .h_pct
-            .max(100.0 * (nasa.h_kj(s.t_k) - s.h_kj).abs() / h_scale);
-        curve_deviation.s_pct = curve_deviation.s_pct.max(relative(nasa.s_j(s.t_k), s.s_j));
-    }
+    let tab_span = (
+        tab.cp_points.first().map_or(f64::NAN, |p| p.0),
+        tab.cp_points.last().map_or(f64::NAN, |p| p.0),
+    );
+    let curve_deviation = curve_deviation_of(&nasa, &states, None);
+    let curve_deviation_tabulated = curve_deviation_of(&nasa, &states, Some(tab_span));
     if cp_deviation_pct > options.max_cp_deviation_pct {
         match options.poor_fit {
             PoorFit::Refuse => {
@@ -416,6 +408,35 @@ pub fn fit_polynomials(
         cp_deviation_pct,
         cp_deviation_at_k,
         curve_deviation,
+        curve_deviation_tabulated,
         flags,
     })
+}
+
+/// |a - b| / |b| in percent.
+fn relative_pct(a: f64, b: f64) -> f64 {
+    100.0 * (a - b).abs() / b.abs()
+}
+
+/// Largest deviations of `nasa` from the curve states (within `span` K, if given).
+fn curve_deviation_of(
+    nasa: &Nasa7,
+    states: &[CurveState],
+    span: Option<(f64, f64)>,
+) -> CurveDeviation {
+    let mut d = CurveDeviation {
+        cp_pct: 0.0,
+        h_pct: 0.0,
+        s_pct: 0.0,
+    };
+    let inside = |t: f64| span.is_none_or(|(lo, hi)| (lo - 1e-9..=hi + 1e-9).contains(&t));
+    for s in states.iter().filter(|s| inside(s.t_k)) {
+        let h_scale = s.h_kj.abs().max(s.cp_j * s.t_k / 1000.0);
+        d.cp_pct = d.cp_pct.max(relative_pct(nasa.cp_j(s.t_k), s.cp_j));
+        d.h_pct = d
+            .h_pct
+            .max(100.0 * (nasa.h_kj(s.t_k) - s.h_kj).abs() / h_scale);
+        d.s_pct = d.s_pct.max(relative_pct(nasa.s_j(s.t_k), s.s_j));
+    }
+    d
 }
