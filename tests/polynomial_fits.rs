@@ -144,6 +144,18 @@ fn extrapolation_against_trc_correlations() {
     assert!(p90 < 4.0, "90th percentile {p90:.2} %");
 }
 
+/// The export job with default options, keeping poor fits (flagged) so that they are measured.
+fn flagging_job(engine: &GroupAdditivity) -> PolynomialJob<'_> {
+    PolynomialJob {
+        engine,
+        estimate: EstimateOptions::default(),
+        fit: PolynomialOptions {
+            poor_fit: PoorFit::Flag,
+            ..PolynomialOptions::default()
+        },
+    }
+}
+
 fn species_file() -> PathBuf {
     PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("tools/cantera_round_trip_species.smi")
 }
@@ -156,14 +168,7 @@ fn round_trip_species_fit_well() {
     let engine = GroupAdditivity::bundled().expect("bundled tables");
     let file = std::fs::File::open(species_file()).expect("species file");
     let records = read_records(std::io::BufReader::new(file), "species").expect("read");
-    let job = PolynomialJob {
-        engine: &engine,
-        estimate: EstimateOptions::default(),
-        fit: PolynomialOptions {
-            poor_fit: PoorFit::Flag,
-            ..PolynomialOptions::default()
-        },
-    };
+    let job = flagging_job(&engine);
     let mut exported = 0;
     let mut over: Vec<String> = Vec::new();
     let mut worst: f64 = 0.0;
@@ -243,14 +248,7 @@ fn yaml_bytes(w: CanteraYamlWriter<Vec<u8>>) -> Vec<u8> {
 fn fit_quality_over_the_reference_set() {
     let engine = GroupAdditivity::bundled().expect("bundled tables");
     let thermo = Table::read("thermo_reference.tsv");
-    let job = PolynomialJob {
-        engine: &engine,
-        estimate: EstimateOptions::default(),
-        fit: PolynomialOptions {
-            poor_fit: PoorFit::Flag,
-            ..PolynomialOptions::default()
-        },
-    };
+    let job = flagging_job(&engine);
     let mut devs = Vec::new();
     for row in &thermo.rows {
         let smiles = row.get(thermo.column("smiles"));
