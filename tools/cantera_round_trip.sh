@@ -19,7 +19,10 @@ cargo build --release --quiet
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
 species=tools/cantera_round_trip_species.smi
-target/release/ringheat polynomials --file "$species" --output "$work/species.yaml"
+# Some species are error rows by design (the tables lack their Cp): a run with error rows may
+# exit with 3 (records failed), which is not a failure of the round trip.
+target/release/ringheat polynomials --file "$species" --output "$work/species.yaml" ||
+  [ $? -eq 3 ]
 target/release/ringheat polynomials --file "$species" --format json \
-  --at 300,500,1000,1500,2500 --output "$work/species.json"
+  --at 300,500,1000,1500,2500 --output "$work/species.json" || [ $? -eq 3 ]
 "$VENV/bin/python" tools/cantera_round_trip.py "$work/species.yaml" "$work/species.json"

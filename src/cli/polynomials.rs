@@ -36,7 +36,8 @@ pub struct PolynomialsArgs {
     /// SMILES to read (each argument one molecule).
     pub smiles: Vec<String>,
     /// Read molecules from this file, one per line: SMILES, then an optional name (the
-    /// species name in the YAML) (`-` for standard input; `#` starts a comment line).
+    /// species name in the YAML) and `sigma=N optical=N` words (`-` for standard input; `#`
+    /// starts a comment line).
     #[arg(short, long)]
     pub file: Option<PathBuf>,
     /// Output format.
@@ -63,19 +64,10 @@ pub struct PolynomialsArgs {
     pub at: Vec<f64>,
     #[command(flatten)]
     pub tables: TableArgs,
-    /// Symmetry number to use instead of the graph's (applies to every input molecule).
-    #[arg(long)]
-    pub sigma: Option<u64>,
-    /// Number of optical isomers to use instead of the graph's (with --sigma).
-    #[arg(long, requires = "sigma")]
-    pub optical_isomers: Option<u8>,
 }
 
 /// Runs the command.
 pub fn run(args: PolynomialsArgs) -> Result<ExitCode, Box<dyn std::error::Error>> {
-    if args.sigma == Some(0) || args.optical_isomers == Some(0) {
-        return Err("--sigma and --optical-isomers must be at least 1".into());
-    }
     if args.ranges.len() != 3 {
         return Err("--ranges takes three temperatures: LOW,MID,HIGH".into());
     }
@@ -108,10 +100,7 @@ pub fn run(args: PolynomialsArgs) -> Result<ExitCode, Box<dyn std::error::Error>
     let records = input.records()?;
     let job = PolynomialJob {
         engine: &engine,
-        estimate: EstimateOptions {
-            symmetry_override: args.sigma.map(|s| (s, args.optical_isomers.unwrap_or(1))),
-            ..EstimateOptions::default()
-        },
+        estimate: EstimateOptions::default(),
         fit: PolynomialOptions {
             ranges,
             max_cp_deviation_pct: args.max_cp_deviation,
