@@ -11,7 +11,8 @@
 
 use super::linear_solve::{constrained_least_squares, Equation};
 
-/// Lowest and highest B tried, K (our choice: wide enough for every molecule we tried).
+/// Lowest and highest B tried, K (our choice: with smaller B the free a-terms bent the curve
+/// below 300 K, down to negative Cp at 100 K for some group sums of the bundled tables).
 const B_SEARCH_K: (f64, f64) = (300.0, 3000.0);
 /// Grid points of the coarse search in ln B before the golden-section refinement.
 const B_GRID_POINTS: usize = 90;
