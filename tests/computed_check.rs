@@ -8,8 +8,8 @@ use ringheat::molecule::parse_smiles;
 use ringheat::reactions::{build_reaction, ReferenceTable, Rung};
 use ringheat::thermo::Quantity;
 
-/// kJ/mol per hartree (validation.md).
-const KJ_PER_HARTREE: f64 = 2625.4996;
+/// kJ/mol per hartree (CODATA 2018, see `ringheat::units`).
+use ringheat::units::KJ_PER_HARTREE;
 
 #[test]
 fn measured_heats_of_formation_round_trip_through_cbh2() {

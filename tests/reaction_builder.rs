@@ -55,8 +55,8 @@ fn expect(smiles: &str, rung: Rung, reactants: &[(&str, u32)], products: &[(&str
 
 #[test]
 fn cyclopropane_rungs() {
-    // The CBH-2 and CBH-3 reactions are the ones science.md section 4 gives (Ramabhadran and
-    // Raghavachari 2011, recalled from memory); CBH-0 and CBH-1 follow from the definitions.
+    // The CBH-2 and CBH-3 reactions are the ones R. O. Ramabhadran and K. Raghavachari, J. Chem.
+    // Theory Comput. 7 (2011) 2094 give (recalled from memory); CBH-0 and CBH-1 follow from the definitions.
     expect(
         "C1CC1",
         Rung::Cbh0,
@@ -352,7 +352,8 @@ fn strain_energies_from_measured_values() {
     // Cyclohexane is close to strain-free (common practice: 0 to 1 kcal/mol).
     let se = strain_kcal("C1CCCCC1", Rung::Cbh2, measured_hf("C1CCCCC1"));
     assert!(se.value.abs() < 1.5, "cyclohexane CBH-2: {se:?}");
-    // An acyclic molecule: n-hexane CBH-2 heat near zero (science.md section 4), within 1 kcal/mol.
+    // An acyclic molecule: n-hexane CBH-2 heat near zero (Ramabhadran and Raghavachari 2011,
+    // recalled from memory), within 1 kcal/mol.
     let se = strain_kcal("CCCCCC", Rung::Cbh2, measured_hf("CCCCCC"));
     assert!(se.value.abs() < 1.0, "n-hexane CBH-2: {se:?}");
 }

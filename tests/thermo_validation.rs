@@ -113,9 +113,23 @@ fn run_validation() -> Figures {
     // CAS numbers that table values were derived from: Hf298 (the species is then left out),
     // or S298 or Cp only.
     let t = &engine.tables;
-    let derived = t.derived_cas(Property::Hf298);
-    let s_derived = t.derived_cas(Property::S298);
-    let cp_derived = t.derived_cas(Property::Cp);
+    let mut derived = t.derived_cas(Property::Hf298);
+    let mut s_derived = t.derived_cas(Property::S298);
+    let mut cp_derived = t.derived_cas(Property::Cp);
+    // Measured values judged unreliable (group-tables/reference/unreliable-species.toml) are no
+    // check either: they are left out the same way.
+    let unreliable = ringheat::data::UnreliableList::bundled().expect("unreliable list loads");
+    for e in unreliable.iter() {
+        for (p, set) in [
+            (Property::Hf298, &mut derived),
+            (Property::S298, &mut s_derived),
+            (Property::Cp, &mut cp_derived),
+        ] {
+            if e.properties.contains(&p) {
+                set.insert(e.cas.to_string());
+            }
+        }
+    }
 
     let table = Table::read("thermo_reference.tsv");
     let col = |n: &str| table.column(n);

@@ -34,6 +34,9 @@ import chemicals
 import rdkit
 from chemicals.identifiers import search_chemical
 from rdkit import Chem, RDLogger
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+from provenance import UNRELIABLE_FILE, unreliable_species  # noqa: E402
 from rdkit.Chem import rdMolDescriptors
 
 RDLogger.DisableLog("rdApp.*")
@@ -593,7 +596,7 @@ def nan_to_none(x):
 
 
 # Cross-checks of the CRC entropy and heat capacity against the package's other tables. WEBBOOK
-# is not used (wrong matches for some species, see validation.md). A CRC value that another
+# is not used (its CAS-number lookup matches some species to the wrong compound). A CRC value that another
 # source contradicts by more than these limits is left empty (our choice: about 2.5 cal/(mol K)
 # for S, about 1.2 cal/(mol K) for Cp, several times the scatter of sound data).
 MAX_S_DISAGREEMENT_J = 10.0
@@ -643,7 +646,7 @@ def heat_capacity_cross_check(cas, cp_crc):
 
 # A CRC-only heat of formation is cross-checked against the two other gas-phase heat-of-formation
 # columns the package carries for it: the NIST WebBook column and the Yaws compilation. Neither is
-# used as a value (WebBook has wrong matches, see validation.md; Yaws carries some estimates). A
+# used as a value (WebBook's lookup matches some species to the wrong compound; Yaws carries some estimates). A
 # CRC value is kept when no check column has the species, or when at least one of them agrees
 # with it within this tolerance; when every available check disagrees nobody here can tell which
 # is right, so the species is dropped. Our choice: about 2 kcal/mol, beyond the scatter of sound
@@ -673,6 +676,7 @@ def check_hfs(cas):
 def make_thermo():
     from chemicals.heat_capacity import CRC_standard_data as crc
     s_dropped, cp_dropped, check_dropped = [], [], []
+    unreliable = unreliable_species(REPO)
 
     _, atct_kept, _ = read_atct()
     atct = {k["cas"]: k for k in atct_kept}
@@ -762,6 +766,26 @@ def make_thermo():
             others = ", ".join(g["cas"] for g in group if g is not r)
             dup.append((r["cas"], r["name"], others))
     rows = unique
+    # The project's list of unreliable species applies on top of the checks above (it was
+    # seeded from them); a species the checks flag that the list lacks is reported.
+    flagged = {c for c, *_ in check_dropped} | {c for c, *_ in s_dropped} | {
+        c for c, *_ in cp_dropped}
+    for cas in sorted(flagged - set(unreliable)):
+        print(f"make_reference: {cas} is flagged by the checks but not listed in "
+              f"{UNRELIABLE_FILE}; add it with its reason", file=sys.stderr)
+    listed_dropped = []
+    kept = []
+    for r in rows:
+        props = unreliable.get(r["cas"], ("", set(), ""))[1]
+        if "hf" in props:
+            listed_dropped.append((r["cas"], r["name"]))
+            continue
+        if "s" in props:
+            r["s298_j"] = ""
+        if "cp" in props:
+            r["cp298_j"] = ""
+        kept.append(r)
+    rows = kept
     counts = {}
     for r in rows:
         counts[r["class"]] = counts.get(r["class"], 0) + 1
@@ -773,7 +797,10 @@ def make_thermo():
         "#   (file 'Heat Capacity/CRC Standard Thermodynamic Properties of Chemical Substances.tsv',",
         f"#   columns Hfg J/mol, S0g J/(mol K), Cpg J/(mol K)) and '{ATCT_TABLE}' (Hfg, uncertainty);",
         "#   SMILES from chemicals.identifiers.search_chemical(CAS).smiles. API TDB and TRC",
-        "#   values are not used, and WEBBOOK and YAWS only as cross-checks (see validation.md).",
+        "#   values are not used, and WEBBOOK and YAWS only as cross-checks (WebBook matches some",
+        "#   CAS numbers to the wrong compound; Yaws carries estimates).",
+        f"# unreliable species: {UNRELIABLE_FILE} ({len(unreliable)} listed) is applied after",
+        "#   the checks below: a listed Hf298 drops the species, a listed S298 or Cp298 is left empty.",
         *versions_header(),
         "# selection: every CAS with a CRC Hfg or an ATcT 1.112 gas entry (ATcT rows only when the",
         "#   looked-up SMILES matches the ATcT formula); one component, net charge 0, no radical",
@@ -810,6 +837,9 @@ def make_thermo():
             f"#     {c} {n}: CRC {v:.1f}; " + ", ".join(f"{m} {o:.1f}" for m, o in bad)
             for c, n, v, bad in cp_dropped
         ],
+        f"# {UNRELIABLE_FILE}: species whose listed Hf298 the checks above did not",
+        f"#   drop already, dropped ({len(listed_dropped)})" + (":" if listed_dropped else "."),
+        *[f"#     {c} {n}" for c, n in listed_dropped],
         "# class counts: " + ", ".join(f"{k} {v}" for k, v in sorted(counts.items())),
         "# columns:",
         "#   cas; name (ATcT name if ATcT has it, else CRC); smiles (PubChem via chemicals);",

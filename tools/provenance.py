@@ -95,3 +95,27 @@ def merged(compounds, cas, name, props):
     if not found:
         out.append(DerivedFrom(cas, name, sort_properties(props)))
     return out
+
+
+UNRELIABLE_FILE = "group-tables/reference/unreliable-species.toml"
+
+
+def unreliable_species(root):
+    """The project's one list of unreliable measured values (UNRELIABLE_FILE under `root`):
+    {CAS: (name, set of properties, reason)}. Raises ValueError on a malformed entry."""
+    import tomllib
+    from pathlib import Path
+
+    data = tomllib.loads((Path(root) / UNRELIABLE_FILE).read_text(encoding="utf-8"))
+    out = {}
+    for e in data.get("unreliable", []):
+        if set(e) != {"cas", "name", "properties", "reason"}:
+            raise ValueError(f"{UNRELIABLE_FILE}: {e!r} needs exactly cas, name, properties, reason")
+        problem = cas_problem(e["cas"])
+        if problem or e["cas"] in out:
+            raise ValueError(f"{UNRELIABLE_FILE}: {problem or 'CAS ' + e['cas'] + ' listed twice'}")
+        props = set(e["properties"])
+        if not props or not props <= set(PROPERTIES):
+            raise ValueError(f"{UNRELIABLE_FILE}: {e['cas']}: properties must be hf, s, cp")
+        out[e["cas"]] = (e["name"], props, e["reason"])
+    return out

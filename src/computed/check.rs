@@ -16,7 +16,8 @@ pub struct CheckOptions {
 
 impl Default for CheckOptions {
     /// Tolerance 10 kJ/mol: our choice, about two to three times the usual group-additivity
-    /// error for molecules whose groups are all tabulated (science.md section 2, recalled);
+    /// error for molecules whose groups are all tabulated (S. W. Benson, Thermochemical Kinetics,
+    /// 2nd ed., Wiley 1976: a few kJ/mol; recalled from memory);
     /// no method uncertainty.
     fn default() -> CheckOptions {
         CheckOptions {

@@ -31,3 +31,9 @@ pub const INCREMENTS_FILE: (&str, &str) = (
     "group-tables/reference/strain-free-increments.toml",
     include_str!("../../group-tables/reference/strain-free-increments.toml"),
 );
+
+/// The list of species whose measured values are judged unreliable.
+pub const UNRELIABLE_FILE: (&str, &str) = (
+    "group-tables/reference/unreliable-species.toml",
+    include_str!("../../group-tables/reference/unreliable-species.toml"),
+);

@@ -20,6 +20,8 @@ pub mod group_file;
 pub mod increments_file;
 pub mod provenance;
 pub mod reference_file;
+pub mod unreliable_file;
 
 pub use error::{DataError, EntryKind, EntryPlace, Place, Problem};
 pub use provenance::{Cas, DerivedFrom, Property, Provenance};
+pub use unreliable_file::{UnreliableList, UnreliableSpecies};

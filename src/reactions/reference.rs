@@ -32,7 +32,7 @@ use super::fragment::Species;
 use super::heat::SourceTag;
 use crate::data::document::{read_file, Source};
 use crate::data::reference_file::{parse_species_file, SpeciesRecord};
-use crate::data::{bundled, DataError, Place, Problem};
+use crate::data::{bundled, DataError, Place, Problem, Property, UnreliableList};
 use crate::molecule::canon::canonical_smiles;
 use crate::molecule::parse_smiles;
 use crate::molecule::PerceivedMolecule;
@@ -75,12 +75,26 @@ pub struct ReferenceTable {
 
 impl ReferenceTable {
     /// The table bundled with the library (all of [`BUNDLED_REFERENCE_FILES`]).
+    ///
+    /// Species whose Hf298 the project's list of unreliable species names
+    /// (group-tables/reference/unreliable-species.toml) are left out, so no strain scheme or
+    /// reaction uses them; the generators leave them out of the files already.
     pub fn bundled() -> Result<ReferenceTable, ReferenceError> {
         let mut table = ReferenceTable::default();
         for (path, text) in BUNDLED_REFERENCE_FILES {
             table.extend(ReferenceTable::from_toml(text, Path::new(path))?)?;
         }
-        Ok(table)
+        Ok(table.without_unreliable(&UnreliableList::bundled()?))
+    }
+
+    /// The table without the species whose Hf298 `list` judges unreliable.
+    pub fn without_unreliable(mut self, list: &UnreliableList) -> ReferenceTable {
+        self.entries.retain(|_, e| {
+            !e.cas
+                .as_deref()
+                .is_some_and(|cas| list.is_unreliable(cas, Property::Hf298))
+        });
+        self
     }
 
     /// Adds the entries of `other`; a structure both tables hold is an error at the second
