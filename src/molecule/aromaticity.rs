@@ -42,7 +42,7 @@ use super::rings::{Ring, RingInfo};
 use super::{BondOrder, Element, Molecule};
 
 /// Pi electrons that atom `v` gives to a conjugated ring, or `None` if it cannot take part.
-fn pi_electrons(mol: &Molecule, rings: &RingInfo, v: NodeIndex) -> Option<u32> {
+pub(crate) fn pi_electrons(mol: &Molecule, rings: &RingInfo, v: NodeIndex) -> Option<u32> {
     let atom = mol.atom(v);
     if !rings.is_ring_atom(v) {
         return None;

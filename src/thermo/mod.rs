@@ -1,5 +1,6 @@
 //! Thermochemistry from groups: Hf298, S298, Cp(T), H(T), S(T), G(T) with uncertainties.
 
+pub mod domain;
 pub mod estimate;
 pub mod flags;
 mod linear_solve;
