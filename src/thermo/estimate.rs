@@ -7,6 +7,7 @@
 
 use petgraph::graph::NodeIndex;
 
+use super::domain::{out_of_domain, OutOfDomain};
 use super::flags::{Flag, Property};
 use super::quantity::Quantity;
 use super::terms::{hf298_sums, s298_cp_sums};
@@ -62,6 +63,9 @@ pub struct EstimateOptions {
     pub symmetry_override: Option<SymmetryOverride>,
     /// No stand-ins: a missing group or ring system is an error (used to derive table values).
     pub strict: bool,
+    /// Estimate molecules outside the domain of group additivity (fullerenes, antiaromatic
+    /// rings; see [`super::domain`]) instead of refusing them; each finding is then a flag.
+    pub allow_out_of_domain: bool,
 }
 
 /// Why a molecule could not be estimated.
@@ -120,6 +124,9 @@ pub enum EstimateError {
     /// The user's symmetry number cannot be this molecule's.
     #[error("symmetry override: {0}")]
     SymmetryOverride(#[from] SymmetryOverrideError),
+    /// The structure is outside the domain of group additivity (see [`super::domain`]).
+    #[error("outside the domain of group additivity, not estimated: {}", .0.iter().map(ToString::to_string).collect::<Vec<_>>().join("; "))]
+    OutOfDomain(Vec<OutOfDomain>),
 }
 
 /// A group the tables lack, how often it occurs, and the first atom that is its centre.
@@ -209,10 +216,12 @@ impl GroupAdditivity {
     ) -> Result<ThermoEstimate, EstimateError> {
         check_one_molecule(p)?;
         self.check_trans_rings(p)?;
+        let domain = domain_step(p, options)?;
         let assignment = assign(p)?;
         let mut steps = self.group_terms(p, &assignment, options)?;
         steps.extend(self.correction_terms(p, &assignment, options)?);
         steps.extend(self.ring_terms(p, options)?);
+        steps.extend(domain);
         let (symmetry, overridden) = symmetry_used(p, options)?;
         Ok(total(steps, symmetry, overridden))
     }
@@ -457,6 +466,25 @@ fn check_one_molecule(p: &PerceivedMolecule) -> Result<(), EstimateError> {
         ));
     }
     Ok(())
+}
+
+/// Domain of validity: a structure group additivity cannot price is refused with the reason,
+/// or (when the options allow it) estimated with a flag per finding.
+fn domain_step(
+    p: &PerceivedMolecule,
+    options: &EstimateOptions,
+) -> Result<StepTerms, EstimateError> {
+    let found = out_of_domain(p);
+    if found.is_empty() {
+        return Ok(StepTerms::default());
+    }
+    if !options.allow_out_of_domain {
+        return Err(EstimateError::OutOfDomain(found));
+    }
+    Ok(StepTerms {
+        terms: Vec::new(),
+        flags: found.into_iter().map(Flag::OutOfDomain).collect(),
+    })
 }
 
 /// Benson groups of every heavy atom; an atom without a Benson type is an error naming it.

@@ -10,6 +10,7 @@ use std::fmt;
 use crate::groups::interactions::InteractionNote;
 use crate::groups::ring_corrections::RingStandIn;
 use crate::groups::GroupKey;
+use crate::thermo::domain::OutOfDomain;
 
 /// A thermochemical property of an estimate.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, serde::Serialize)]
@@ -55,6 +56,8 @@ pub enum FlagCategory {
     Assumption,
     /// A property could not be estimated.
     PropertyMissing,
+    /// The structure lies outside the domain of group additivity.
+    OutOfDomain,
 }
 
 impl FlagCategory {
@@ -65,6 +68,7 @@ impl FlagCategory {
             FlagCategory::NotApplied => "not applied",
             FlagCategory::Assumption => "assumption",
             FlagCategory::PropertyMissing => "missing property",
+            FlagCategory::OutOfDomain => "out of domain",
         }
     }
 }
@@ -105,6 +109,9 @@ pub enum Flag {
         /// Labels of the terms without a value for it.
         lacking: Vec<String>,
     },
+    /// The structure is outside the domain of group additivity, estimated only because the
+    /// options asked for it (the numbers miss what the finding names).
+    OutOfDomain(OutOfDomain),
 }
 
 impl Flag {
@@ -117,6 +124,7 @@ impl Flag {
             Flag::CorrectionNotApplied { .. } => FlagCategory::NotApplied,
             Flag::Interaction(_) => FlagCategory::Assumption,
             Flag::PropertyNotEstimated { .. } => FlagCategory::PropertyMissing,
+            Flag::OutOfDomain(_) => FlagCategory::OutOfDomain,
         }
     }
 
@@ -156,6 +164,11 @@ impl fmt::Display for Flag {
                 property.table_word(),
                 lacking.join(", "),
                 property.symbol()
+            ),
+            Flag::OutOfDomain(found) => write!(
+                f,
+                "outside the domain of group additivity ({found}); the numbers are not an \
+                 estimate of this molecule"
             ),
         }
     }
