@@ -25,6 +25,12 @@
 //! one measured Cp298 is not a Cp(T)). Conformational corrections (gauche, 1,5, vicinal) take
 //! S and Cp 0.
 //!
+//! Plausibility (bounds fixed in advance, stated in [`Bounds`]): a derived value that lies outside
+//! the bounds of its family is rejected, not shipped: that property of the entry is left out
+//! (unknown, and estimates that need it say so), and a rejected Hf298 drops the entry. A group
+//! that is the whole compound (halomethanes, ketene, ...) is the measurement itself and is not
+//! bounded. Rejections are printed.
+//!
 //! Run: `cargo run --release --example derive_missing_groups` (or all generators in order:
 //! `python3 tools/regenerate.py`)
 
@@ -233,6 +239,181 @@ fn toml_string(s: &str) -> String {
     format!("\"{}\"", s.replace('\\', "\\\\").replace('"', "\\\""))
 }
 
+/// Entropy a halogen ligand adds over a hydrogen on the same centre, cal/(mol K): the means of
+/// S. W. Benson's published pairs Cb-(X)/Cb-(H), Cd-(X)(H)/Cd-(H)2 and C-(X)(H)2(C)/C-(H)3(C)
+/// (Thermochemical Kinetics, 2nd ed., Wiley 1976, Appendix A; recalled from memory): F 4.9,
+/// Cl 7.5, Br 10.4, I 12.6. Used only to put halogen groups on their hydrogen family's scale.
+const HALOGEN_ENTROPY_OVER_H_CAL: [(&str, f64); 4] =
+    [("F", 4.9), ("Cl", 7.5), ("Br", 10.4), ("I", 12.6)];
+/// Heat capacity at 300 K a halogen ligand adds over a hydrogen, cal/(mol K): about 3 (our
+/// reading of Benson's pairs: Cb-(F)/Cb-(H) 3.1, C-(Cl)(H)2(C)/C-(H)3(C) 2.7, C-(Cl)3(C)/C-(H)3(C)
+/// 3.4 per Cl; recalled from memory). Used only for the Cp bound.
+const HALOGEN_CP300_OVER_H_CAL: f64 = 3.0;
+const CAL: f64 = 4.184;
+
+/// Plausibility bounds of derived values (fixed in advance; our choice, from the spread of
+/// Benson's published values of each family):
+/// - non-ring corrections (gauche, 1,5, cis, ortho, vicinal): |Hf298| <= 10 kcal/mol,
+///   |S298| <= 3 cal/(mol K), |Cp| <= 3 cal/(mol K) at every temperature (the published alkane,
+///   alkene and benzene corrections lie well inside);
+/// - ring corrections, per ring of the system: -20 <= Hf298 <= 60 kcal/mol, -10 <= S298 <= 40
+///   cal/(mol K), -15 <= Cp300 <= 5 cal/(mol K) (cyclopropane 27.6 kcal/mol and 32.1
+///   cal/(mol K), thiophene's resonance about -15 kcal/mol);
+/// - groups: S298 on the hydrogen scale (each halogen ligand less its
+///   [`HALOGEN_ENTROPY_OVER_H_CAL`]) within 8 cal/(mol K) of the range of the non-derived groups
+///   of the same family (centre type and number of H and halogen ligands) in the tables, and
+///   Cp300 (each halogen less [`HALOGEN_CP300_OVER_H_CAL`]) within 5 cal/(mol K) of that
+///   family's range; a family with no such member is not bounded.
+struct Bounds {
+    /// (centre, monovalent ligands) -> (min, max) of S298 on the hydrogen scale and of Cp300,
+    /// J/(mol K), over the non-derived groups of the tables.
+    families: HashMap<(String, u32), ((f64, f64), (f64, f64))>,
+}
+
+/// Centre type and number of monovalent (H, halogen) ligands of a group, and its entropy and
+/// Cp300 shifts to the hydrogen scale (J/(mol K)).
+fn family_of(key: &ringheat::groups::GroupKey) -> ((String, u32), f64, f64) {
+    let mut mono = 0;
+    let mut shift = 0.0;
+    let mut cp_shift = 0.0;
+    for (name, n) in &key.ligands {
+        if name == "H" {
+            mono += *n as u32;
+        }
+        if let Some((_, ds)) = HALOGEN_ENTROPY_OVER_H_CAL.iter().find(|(x, _)| x == name) {
+            mono += *n as u32;
+            shift += *n as f64 * ds * CAL;
+            cp_shift += *n as f64 * HALOGEN_CP300_OVER_H_CAL * CAL;
+        }
+    }
+    ((key.centre.clone(), mono), shift, cp_shift)
+}
+
+impl Bounds {
+    fn from_tables(tables: &GroupTables) -> Bounds {
+        let mut families: HashMap<(String, u32), ((f64, f64), (f64, f64))> = HashMap::new();
+        for g in tables.groups() {
+            if !g.provenance.is_empty() || g.same_as.is_some() {
+                continue;
+            }
+            let v = &g.values;
+            if !(v.known.s && v.known.cp) {
+                continue;
+            }
+            let (fam, shift, cp_shift) = family_of(&g.key);
+            let (s, cp) = (v.s_j - shift, v.cp_j[0] - cp_shift);
+            let e = families
+                .entry(fam)
+                .or_insert(((f64::MAX, f64::MIN), (f64::MAX, f64::MIN)));
+            e.0 = (e.0 .0.min(s), e.0 .1.max(s));
+            e.1 = (e.1 .0.min(cp), e.1 .1.max(cp));
+        }
+        Bounds { families }
+    }
+
+    /// Why a derived group value is implausible, if it is: (property, reason).
+    fn group(&self, key: &str, s: Option<f64>, cp300: Option<f64>) -> Vec<(&'static str, String)> {
+        let Ok(k) = ringheat::groups::GroupKey::parse(key) else {
+            return Vec::new();
+        };
+        let (fam, shift, cp_shift) = family_of(&k);
+        let Some(((smin, smax), (cmin, cmax))) = self.families.get(&fam) else {
+            return Vec::new();
+        };
+        let mut out = Vec::new();
+        if let Some(s) = s {
+            let sh = s - shift;
+            if sh < smin - 8.0 * CAL || sh > smax + 8.0 * CAL {
+                out.push((
+                    "s",
+                    format!(
+                        "S298 {:.1} cal/(mol K) ({:.1} on the hydrogen scale) outside the {} family range {:.1}..{:.1} widened by 8",
+                        s / CAL,
+                        sh / CAL,
+                        fam.0,
+                        smin / CAL,
+                        smax / CAL
+                    ),
+                ));
+            }
+        }
+        if let Some(c) = cp300.map(|c| c - cp_shift) {
+            if c < cmin - 5.0 * CAL || c > cmax + 5.0 * CAL {
+                out.push((
+                    "cp",
+                    format!(
+                        "Cp300 {:.1} cal/(mol K) on the hydrogen scale outside the {} family range \
+                         {:.1}..{:.1} widened by 5",
+                        c / CAL,
+                        fam.0,
+                        cmin / CAL,
+                        cmax / CAL
+                    ),
+                ));
+            }
+        }
+        out
+    }
+}
+
+/// Why a derived correction (rings: `rings` > 0 rings in the system) is implausible.
+fn correction_bounds(
+    rings: usize,
+    hf: f64,
+    s: Option<f64>,
+    cp: Option<&[f64]>,
+) -> Vec<(&'static str, String)> {
+    let mut out = Vec::new();
+    let n = rings as f64;
+    let (hf_lo, hf_hi, s_lo, s_hi, cp_lo, cp_hi) = if rings == 0 {
+        (-10.0, 10.0, -3.0, 3.0, -3.0, 3.0)
+    } else {
+        (-20.0 * n, 60.0 * n, -10.0, 40.0 * n, -15.0 * n, 5.0 * n)
+    };
+    let what = if rings == 0 {
+        "non-ring correction"
+    } else {
+        "ring correction"
+    };
+    if hf / CAL < hf_lo || hf / CAL > hf_hi {
+        out.push((
+            "hf",
+            format!(
+                "Hf298 {:.1} kcal/mol outside {hf_lo}..{hf_hi} for a {what}",
+                hf / CAL
+            ),
+        ));
+    }
+    if let Some(s) = s {
+        if s / CAL < s_lo || s / CAL > s_hi {
+            out.push((
+                "s",
+                format!(
+                    "S298 {:.1} cal/(mol K) outside {s_lo}..{s_hi} for a {what}",
+                    s / CAL
+                ),
+            ));
+        }
+    }
+    if let Some(cp) = cp {
+        let bad = if rings == 0 {
+            cp.iter().any(|c| c / CAL < cp_lo || c / CAL > cp_hi)
+        } else {
+            cp[0] / CAL < cp_lo || cp[0] / CAL > cp_hi
+        };
+        if bad {
+            out.push((
+                "cp",
+                format!(
+                    "Cp {:.1} cal/(mol K) at 300 K outside {cp_lo}..{cp_hi} for a {what}",
+                    cp[0] / CAL
+                ),
+            ));
+        }
+    }
+    out
+}
+
 /// Upper bound on derivation rounds (each round may enable the next).
 const ROUNDS: u32 = 16;
 
@@ -257,6 +438,7 @@ fn main() {
     }
     // Compounds already used by other files' derivations stay unavailable.
     let base = GroupTables::load_dir(&work).expect("tables load");
+    let bounds = Bounds::from_tables(&base);
     let mut used: HashSet<String> = HashSet::new();
     used.extend(base.derived_cas(Property::Hf298));
     let mut groups_out = String::new();
@@ -395,7 +577,13 @@ fn main() {
                     r: &Reference,
                     n: u32,
                     stand_ins: bool,
-                    conformational: bool|
+                    conformational: bool,
+                    bound: &dyn Fn(
+            bool,
+            f64,
+            Option<f64>,
+            Option<&[f64]>,
+        ) -> Vec<(&'static str, String)>|
          -> bool {
             let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
                 return false;
@@ -441,22 +629,21 @@ fn main() {
             let meas_unc = r.hf_unc.unwrap_or(CRC_HF_UNC_KJ);
             let hf = (r.hf - est_hf.value) / k;
             let unc_hf = meas_unc.hypot(est_hf.uncertainty) / k;
-            let _ = write!(out, "\n{head}\nhf = {hf:.2}\nunc_hf = {unc_hf:.2}\n");
             let mut what = format!(
                 "Hf298 {:.2} kJ/mol ({}, thermo_reference.tsv)",
                 r.hf, r.hf_source
             );
-            // The properties whose values rest on this compound's measurements.
-            let mut derived = vec![Property::Hf298];
+            // Values first, then the plausibility bounds, then the entry.
+            let mut s_value: Option<(f64, f64)> = None;
+            let mut cp_value: Option<(Vec<f64>, f64)> = None;
+            let mut s_what = String::new();
+            let mut cp_what = String::new();
             if conformational {
-                let _ = write!(
-                    out,
-                    "s = 0.0\nunc_s = 0.0\ncp = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]\nunc_cp = 0.0\n"
-                );
-                what.push_str(
-                    "; S and Cp taken as 0, as Benson does for the alkane gauche and 1,5 \
-                     corrections (our choice for the other conformational corrections)",
-                );
+                s_value = Some((0.0, 0.0));
+                cp_value = Some((vec![0.0; 7], 0.0));
+                s_what = "; S and Cp taken as 0, as Benson does for the alkane gauche and 1,5 \
+                          corrections (our choice for the other conformational corrections)"
+                    .to_string();
             } else {
                 let trc_of = trc.get(&r.cas);
                 let s_measured = match (r.s, trc_of.and_then(|t| t.s298_j)) {
@@ -467,26 +654,59 @@ fn main() {
                 if let (Some((s_meas, s_from)), Some(s_est)) = (s_measured, est.s298_j) {
                     let s = (s_meas - s_est.value) / k;
                     let unc_s = CRC_S_UNC_J.hypot(s_est.uncertainty) / k;
-                    let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
-                    derived.push(Property::S298);
-                    what.push_str(&format!(" and S298 {s_meas:.2} J/(mol K) ({s_from})"));
+                    s_value = Some((s, unc_s));
+                    s_what = format!(" and S298 {s_meas:.2} J/(mol K) ({s_from})");
                 }
                 if let (Some(cp_meas), Some(cp_est)) = (trc_of.and_then(|t| t.cp_j), est.cp_j) {
-                    let cp: Vec<String> = cp_meas
+                    let cp: Vec<f64> = cp_meas
                         .iter()
                         .zip(&cp_est)
-                        .map(|(m, e)| format!("{:.2}", (m - e.value) / k))
+                        .map(|(m, e)| (m - e.value) / k)
                         .collect();
                     let unc_cp = cp_est
                         .iter()
                         .map(|e| TRC_CP_UNC_J.hypot(e.uncertainty) / k)
                         .fold(0.0, f64::max);
-                    let _ = write!(out, "cp = [{}]\nunc_cp = {unc_cp:.2}\n", cp.join(", "));
+                    cp_value = Some((cp, unc_cp));
+                    cp_what = " and ideal-gas Cp(T) at 300-1500 K (TRC correlation, \
+                               trc_heat_capacity.tsv)"
+                        .to_string();
+                }
+            }
+            let whole = est.terms.len() == 1 && n == 1;
+            let rejected = bound(
+                whole,
+                hf,
+                s_value.map(|v| v.0),
+                cp_value.as_ref().map(|v| v.0.as_slice()),
+            );
+            for (prop, why) in &rejected {
+                println!(
+                    "  rejected {prop} of {own} from {} ({}): {why}",
+                    r.name, r.cas
+                );
+            }
+            let rejected_prop = |p: &str| rejected.iter().any(|(q, _)| *q == p);
+            if rejected_prop("hf") {
+                return false;
+            }
+            let _ = write!(out, "\n{head}\nhf = {hf:.2}\nunc_hf = {unc_hf:.2}\n");
+            if let Some((s, unc_s)) = s_value.filter(|_| !rejected_prop("s")) {
+                let _ = write!(out, "s = {s:.2}\nunc_s = {unc_s:.2}\n");
+                what.push_str(&s_what);
+            }
+            if let Some((cp, unc_cp)) = cp_value.clone().filter(|_| !rejected_prop("cp")) {
+                let cp: Vec<String> = cp.iter().map(|c| format!("{c:.2}")).collect();
+                let _ = write!(out, "cp = [{}]\nunc_cp = {unc_cp:.2}\n", cp.join(", "));
+                what.push_str(&cp_what);
+            }
+            let mut derived = vec![Property::Hf298];
+            if !conformational {
+                if s_value.is_some() && !rejected_prop("s") {
+                    derived.push(Property::S298);
+                }
+                if cp_value.is_some() && !rejected_prop("cp") {
                     derived.push(Property::Cp);
-                    what.push_str(
-                        " and ideal-gas Cp(T) at 300-1500 K (TRC correlation, \
-                         trc_heat_capacity.tsv)",
-                    );
                 }
             }
             let provenance = Provenance {
@@ -496,6 +716,12 @@ fn main() {
                     properties: derived,
                 }],
             };
+            for (prop, why) in &rejected {
+                what.push_str(&format!(
+                    "; {prop} not shipped: the derived value is implausible ({why}; bounds in \
+                     examples/derive_missing_groups.rs)"
+                ));
+            }
             let _ = write!(
                 out,
                 "derived_from = {}\nsource = {}\n",
@@ -520,6 +746,13 @@ fn main() {
                 *n,
                 false,
                 false,
+                &|whole, _hf, s, cp| {
+                    if whole {
+                        Vec::new()
+                    } else {
+                        bounds.group(key, s, cp.map(|c| c[0]))
+                    }
+                },
             ) {
                 used.insert(r.cas.clone());
                 count += 1;
@@ -550,6 +783,7 @@ fn main() {
                 *n,
                 false,
                 conformational,
+                &|_, hf, s, cp| correction_bounds(0, hf, s, cp),
             ) {
                 used.insert(r.cas.clone());
                 count += 1;
@@ -565,6 +799,10 @@ fn main() {
                 toml_string(&r.smiles)
             );
             let own = format!("placeholder {n}");
+            let ring_count = PerceivedMolecule::from_smiles(&r.smiles)
+                .map(|p| p.rings.rings.len())
+                .unwrap_or(1)
+                .max(1);
             if emit(
                 &mut derived_rings,
                 &head,
@@ -573,6 +811,7 @@ fn main() {
                 1,
                 joint.contains(i),
                 false,
+                &|_, hf, s, cp| correction_bounds(ring_count, hf, s, cp),
             ) {
                 if joint.contains(i) {
                     if let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) {
