@@ -277,16 +277,19 @@ fn family_of(key: &ringheat::groups::GroupKey) -> ((String, u32), f64, f64) {
     let mut shift = 0.0;
     let mut cp_shift = 0.0;
     for (name, n) in &key.ligands {
-        if name == "H" {
+        if name.symbol() == "H" {
             mono += *n as u32;
         }
-        if let Some((_, ds)) = HALOGEN_ENTROPY_OVER_H_CAL.iter().find(|(x, _)| x == name) {
+        if let Some((_, ds)) = HALOGEN_ENTROPY_OVER_H_CAL
+            .iter()
+            .find(|(x, _)| *x == name.symbol())
+        {
             mono += *n as u32;
             shift += *n as f64 * ds * CAL;
             cp_shift += *n as f64 * HALOGEN_CP300_OVER_H_CAL * CAL;
         }
     }
-    ((key.centre.clone(), mono), shift, cp_shift)
+    ((key.centre.to_string(), mono), shift, cp_shift)
 }
 
 impl Bounds {
