@@ -251,6 +251,15 @@ const HALOGEN_ENTROPY_OVER_H_CAL: [(&str, f64); 4] =
 const HALOGEN_CP300_OVER_H_CAL: f64 = 3.0;
 const CAL: f64 = 4.184;
 
+/// (centre, number of H and halogen ligands): a group family.
+type Family = (String, u32);
+/// (min, max) of S298 on the hydrogen scale and of Cp300, J/(mol K).
+type FamilyRange = ((f64, f64), (f64, f64));
+/// Why a derived value is implausible: (property, reason) per rejected property.
+type Rejections = Vec<(&'static str, String)>;
+/// The plausibility test of one derived entry: (whole compound, hf, s, cp) -> rejections.
+type BoundTest<'a> = &'a dyn Fn(bool, f64, Option<f64>, Option<&[f64]>) -> Rejections;
+
 /// Plausibility bounds of derived values (fixed in advance; our choice, from the spread of
 /// Benson's published values of each family):
 /// - non-ring corrections (gauche, 1,5, cis, ortho, vicinal): |Hf298| <= 10 kcal/mol,
@@ -267,7 +276,7 @@ const CAL: f64 = 4.184;
 struct Bounds {
     /// (centre, monovalent ligands) -> (min, max) of S298 on the hydrogen scale and of Cp300,
     /// J/(mol K), over the non-derived groups of the tables.
-    families: HashMap<(String, u32), ((f64, f64), (f64, f64))>,
+    families: HashMap<Family, FamilyRange>,
 }
 
 /// Centre type and number of monovalent (H, halogen) ligands of a group, and its entropy and
@@ -294,7 +303,7 @@ fn family_of(key: &ringheat::groups::GroupKey) -> ((String, u32), f64, f64) {
 
 impl Bounds {
     fn from_tables(tables: &GroupTables) -> Bounds {
-        let mut families: HashMap<(String, u32), ((f64, f64), (f64, f64))> = HashMap::new();
+        let mut families: HashMap<Family, FamilyRange> = HashMap::new();
         for g in tables.groups() {
             if !g.provenance.is_empty() || g.same_as.is_some() {
                 continue;
@@ -315,7 +324,7 @@ impl Bounds {
     }
 
     /// Why a derived group value is implausible, if it is: (property, reason).
-    fn group(&self, key: &str, s: Option<f64>, cp300: Option<f64>) -> Vec<(&'static str, String)> {
+    fn group(&self, key: &str, s: Option<f64>, cp300: Option<f64>) -> Rejections {
         let Ok(k) = ringheat::groups::GroupKey::parse(key) else {
             return Vec::new();
         };
@@ -360,12 +369,7 @@ impl Bounds {
 }
 
 /// Why a derived correction (rings: `rings` > 0 rings in the system) is implausible.
-fn correction_bounds(
-    rings: usize,
-    hf: f64,
-    s: Option<f64>,
-    cp: Option<&[f64]>,
-) -> Vec<(&'static str, String)> {
+fn correction_bounds(rings: usize, hf: f64, s: Option<f64>, cp: Option<&[f64]>) -> Rejections {
     let mut out = Vec::new();
     let n = rings as f64;
     let (hf_lo, hf_hi, s_lo, s_hi, cp_lo, cp_hi) = if rings == 0 {
@@ -581,12 +585,7 @@ fn main() {
                     n: u32,
                     stand_ins: bool,
                     conformational: bool,
-                    bound: &dyn Fn(
-            bool,
-            f64,
-            Option<f64>,
-            Option<&[f64]>,
-        ) -> Vec<(&'static str, String)>|
+                    bound: BoundTest|
          -> bool {
             let Ok(p) = PerceivedMolecule::from_smiles(&r.smiles) else {
                 return false;

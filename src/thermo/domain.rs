@@ -238,7 +238,7 @@ fn antiaromatic_rings(p: &PerceivedMolecule, pi: &[Option<u32>]) -> Vec<OutOfDom
             .map(|a| pi.get(a.index()).copied().flatten().filter(|e| *e >= 1))
             .sum()
     };
-    let is_4n = |e: u32| e > 0 && e % 4 == 0;
+    let is_4n = |e: u32| e > 0 && e.is_multiple_of(4);
     let mut out = Vec::new();
     let mut covered: Vec<usize> = Vec::new();
     for (i, ring) in p.rings.rings.iter().enumerate() {
