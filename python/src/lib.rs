@@ -28,7 +28,9 @@ fn load_engine(
 ) -> Result<GroupAdditivity, String> {
     let loaded = match (&tables, &extra_tables) {
         (Some(_), Some(_)) => {
-            return Err("give tables or extra_tables, not both (as --tables and --extra-tables)".into())
+            return Err(
+                "give tables or extra_tables, not both (as --tables and --extra-tables)".into(),
+            )
         }
         (Some(dir), None) => GroupTables::load_dir(dir),
         (None, Some(dir)) => GroupTables::bundled().and_then(|t| t.with_extra_dir(dir)),
@@ -55,7 +57,11 @@ fn to_json<T: serde::Serialize>(value: &T) -> PyResult<String> {
 impl Engine {
     #[new]
     #[pyo3(signature = (tables=None, extra_tables=None))]
-    fn new(py: Python<'_>, tables: Option<PathBuf>, extra_tables: Option<PathBuf>) -> PyResult<Engine> {
+    fn new(
+        py: Python<'_>,
+        tables: Option<PathBuf>,
+        extra_tables: Option<PathBuf>,
+    ) -> PyResult<Engine> {
         py.detach(|| -> Result<Engine, String> {
             let engine = load_engine(tables, extra_tables)?;
             let mut strain = StrainData::bundled().map_err(|e| e.to_string())?;
@@ -82,8 +88,8 @@ impl Engine {
         threads: usize,
         lines: Option<Vec<usize>>,
     ) -> PyResult<String> {
-        let records =
-            records::from_items(items, &source, first_line, lines).map_err(PyValueError::new_err)?;
+        let records = records::from_items(items, &source, first_line, lines)
+            .map_err(PyValueError::new_err)?;
         let options = estimate_options(sigma, optical_isomers, &temperatures_k)?;
         py.detach(|| {
             to_json(&records::estimate(
@@ -130,8 +136,8 @@ impl Engine {
         first_line: usize,
         hf298_kj: Option<(f64, f64)>,
     ) -> PyResult<String> {
-        let records = records::from_items(items, &source, first_line, None)
-            .map_err(PyValueError::new_err)?;
+        let records =
+            records::from_items(items, &source, first_line, None).map_err(PyValueError::new_err)?;
         if let Some((v, u)) = hf298_kj {
             if !v.is_finite() || !u.is_finite() || u < 0.0 {
                 return Err(PyValueError::new_err(
@@ -163,8 +169,8 @@ impl Engine {
         rungs: Vec<u8>,
         template_unit: Option<String>,
     ) -> PyResult<String> {
-        let records = records::from_items(items, &source, first_line, None)
-            .map_err(PyValueError::new_err)?;
+        let records =
+            records::from_items(items, &source, first_line, None).map_err(PyValueError::new_err)?;
         let rungs = rungs
             .iter()
             .map(|&n| {
@@ -215,7 +221,10 @@ fn estimate_options(
     if optical_isomers.is_some() && sigma.is_none() {
         return Err(PyValueError::new_err("optical_isomers needs sigma"));
     }
-    if let Some(t) = temperatures_k.iter().find(|t| !(298.15..=1500.0).contains(*t)) {
+    if let Some(t) = temperatures_k
+        .iter()
+        .find(|t| !(298.15..=1500.0).contains(*t))
+    {
         return Err(PyValueError::new_err(format!(
             "temperature {t} K: temperatures must lie in 298.15..1500 K"
         )));

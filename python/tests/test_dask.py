@@ -25,16 +25,17 @@ def test_screen_on_two_workers_equals_the_single_process_run(tmp_path):
     out = tmp_path / "screen.parquet"
     with distributed.LocalCluster(
         n_workers=2, threads_per_worker=1, processes=True, dashboard_address=None
-    ) as cluster, distributed.Client(cluster):
+    ) as cluster, distributed.Client(cluster) as client:
         frame = dd.from_pandas(inputs, npartitions=8)
         results = frame.map_partitions(
             ringheat.estimate_frame, "smiles", meta=ringheat.frame_meta()
         )
         results.to_parquet(out)
-        workers = len(cluster.scheduler_info()["workers"])
+        workers = len(client.scheduler_info()["workers"])
     assert workers == 2
 
     got = pd.read_parquet(out).sort_index()
+    got.index.name = None  # Dask writes the unnamed index as __null_dask_index__
     assert got.index.tolist() == list(range(N_SMILES)), "every input row is in the output"
     assert got["input"].tolist() == smiles
     columns = list(ringheat.RECORD_COLUMNS)
