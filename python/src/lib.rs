@@ -11,6 +11,7 @@ use pyo3::exceptions::{PyOSError, PyValueError};
 use pyo3::prelude::*;
 
 use ringheat::groups::table::GroupTables;
+use ringheat::molecule::symmetry::SymmetryOverride;
 use ringheat::reactions::{group_additivity_fallback, lookup_with_fallback, Rung};
 use ringheat::report::reactions::reaction_rows;
 use ringheat::report::strain::strain_rows;
@@ -213,14 +214,14 @@ fn estimate_options(
     optical_isomers: Option<u8>,
     temperatures_k: &[f64],
 ) -> PyResult<EstimateOptions> {
-    if sigma == Some(0) || optical_isomers == Some(0) {
-        return Err(PyValueError::new_err(
-            "sigma and optical_isomers must be at least 1",
-        ));
-    }
     if optical_isomers.is_some() && sigma.is_none() {
         return Err(PyValueError::new_err("optical_isomers needs sigma"));
     }
+    // Checked as `--sigma` / `--optical-isomers` are checked.
+    let symmetry_override = sigma
+        .map(|s| SymmetryOverride::new(s, optical_isomers.unwrap_or(1)))
+        .transpose()
+        .map_err(|e| PyValueError::new_err(format!("sigma/optical_isomers: {e}")))?;
     if let Some(t) = temperatures_k
         .iter()
         .find(|t| !(298.15..=1500.0).contains(*t))
@@ -230,7 +231,7 @@ fn estimate_options(
         )));
     }
     Ok(EstimateOptions {
-        symmetry_override: sigma.map(|s| (s, optical_isomers.unwrap_or(1))),
+        symmetry_override,
         ..EstimateOptions::default()
     })
 }
