@@ -15,7 +15,7 @@ from __future__ import annotations
 
 import json
 import os
-from typing import Any, Dict, Iterable, List, Optional, Sequence, Tuple, Union
+from typing import Any, Callable, Dict, Iterable, List, Optional, Sequence, Tuple, Union
 
 from . import _ringheat
 from ._types import (
@@ -309,74 +309,29 @@ def engine(tables: Optional[PathLike] = None, extra_tables: Optional[PathLike] =
     return _engines[key]
 
 
-def estimate(
-    smiles: str,
-    *,
-    name: Optional[str] = None,
-    temperatures_k: Sequence[float] = (),
-    sigma: Optional[int] = None,
-    optical_isomers: Optional[int] = None,
-    tables: Optional[PathLike] = None,
-    extra_tables: Optional[PathLike] = None,
-) -> Estimate:
-    """Hf298, S298 and Cp(T) of one molecule by group additivity, every term with its source.
+def _on_engine(method: Callable[..., Any]) -> Callable[..., Any]:
+    """The module-level form of an ``Engine`` method: the same arguments, plus ``tables`` and
+    ``extra_tables`` choosing the engine as ``--tables`` and ``--extra-tables`` do (bundled
+    tables by default; see ``engine``). ``__init__.pyi`` gives editors the full signatures."""
 
-    Raises ``SmilesError`` (with ``column``) or ``EstimateError``, carrying the command line's
-    place and message."""
-    return engine(tables, extra_tables).estimate(
-        smiles,
-        name=name,
-        temperatures_k=temperatures_k,
-        sigma=sigma,
-        optical_isomers=optical_isomers,
-    )
+    def function(
+        *args: Any,
+        tables: Optional[PathLike] = None,
+        extra_tables: Optional[PathLike] = None,
+        **kwargs: Any,
+    ) -> Any:
+        return getattr(engine(tables, extra_tables), method.__name__)(*args, **kwargs)
+
+    function.__name__ = function.__qualname__ = method.__name__
+    function.__doc__ = method.__doc__
+    return function
 
 
-def estimate_many(
-    items: Iterable[Item],
-    *,
-    threads: Optional[int] = None,
-    temperatures_k: Sequence[float] = (),
-    sigma: Optional[int] = None,
-    optical_isomers: Optional[int] = None,
-    source: str = "<python>",
-    first_line: int = 1,
-    lines: Optional[Sequence[int]] = None,
-    tables: Optional[PathLike] = None,
-    extra_tables: Optional[PathLike] = None,
-) -> Rows:
-    """One row per item (SMILES or (SMILES, name)), in order: ``Estimate`` or ``Failure``.
-    ``rows.to_dataframe()`` gives a pandas DataFrame when pandas is installed."""
-    return engine(tables, extra_tables).estimate_many(
-        items,
-        threads=threads,
-        temperatures_k=temperatures_k,
-        sigma=sigma,
-        optical_isomers=optical_isomers,
-        source=source,
-        first_line=first_line,
-        lines=lines,
-    )
-
-
-def estimate_file(
-    path: PathLike,
-    *,
-    threads: Optional[int] = None,
-    temperatures_k: Sequence[float] = (),
-    sigma: Optional[int] = None,
-    optical_isomers: Optional[int] = None,
-    tables: Optional[PathLike] = None,
-    extra_tables: Optional[PathLike] = None,
-) -> Rows:
-    """Rows of a SMILES file, read as ``ringheat estimate --file`` reads it."""
-    return engine(tables, extra_tables).estimate_file(
-        path,
-        threads=threads,
-        temperatures_k=temperatures_k,
-        sigma=sigma,
-        optical_isomers=optical_isomers,
-    )
+estimate = _on_engine(Engine.estimate)
+estimate_many = _on_engine(Engine.estimate_many)
+estimate_file = _on_engine(Engine.estimate_file)
+strain = _on_engine(Engine.strain)
+cbh = _on_engine(Engine.cbh)
 
 
 def estimate_frame(
@@ -418,33 +373,6 @@ def _integer_index(index: Any) -> bool:
 def frame_meta() -> Any:
     """An empty DataFrame with the columns and types ``estimate_frame`` returns."""
     return Rows().to_dataframe()
-
-
-def strain(
-    smiles: str,
-    *,
-    hf298_kj_per_mol: Optional[float] = None,
-    hf298_unc_kj_per_mol: float = 0.0,
-    tables: Optional[PathLike] = None,
-    extra_tables: Optional[PathLike] = None,
-) -> Strain:
-    """Strain energy of one molecule by every scheme (Benson and Schleyer increments, CBH-2,
-    CBH-3), side by side, each with its uncertainty and source."""
-    return engine(tables, extra_tables).strain(
-        smiles, hf298_kj_per_mol=hf298_kj_per_mol, hf298_unc_kj_per_mol=hf298_unc_kj_per_mol
-    )
-
-
-def cbh(
-    smiles: str,
-    rung: int,
-    *,
-    template_unit: Optional[str] = None,
-    tables: Optional[PathLike] = None,
-    extra_tables: Optional[PathLike] = None,
-) -> CbhReaction:
-    """The CBH-``rung`` reaction (0 to 3) of one molecule with each species' reference Hf298."""
-    return engine(tables, extra_tables).cbh(smiles, rung, template_unit=template_unit)
 
 
 __all__ = [
