@@ -12,7 +12,31 @@ const CASES: &[(&str, &str)] = &[
     ("hexamethylbenzene", "Cc1c(C)c(C)c(C)c(C)c1C"),
 ];
 
+/// PubChem-like input: the molecules of the spelling-invariance sample as PubChem gives them
+/// (`tests/reference/six_spellings.tsv`, column `as_given`), perceived as the estimate does.
+fn pubchem_like() -> Vec<ringheat::molecule::PerceivedMolecule> {
+    include_str!("../tests/reference/six_spellings.tsv")
+        .lines()
+        .filter(|l| !l.starts_with('#'))
+        .skip(1)
+        .filter_map(|l| l.split('\t').nth(1))
+        .take(1000)
+        .filter_map(|s| ringheat::molecule::PerceivedMolecule::from_smiles(s).ok())
+        .collect()
+}
+
 fn symmetry(c: &mut Criterion) {
+    let set = pubchem_like();
+    let mut group = c.benchmark_group("symmetry_number PubChem-like");
+    group.throughput(criterion::Throughput::Elements(set.len() as u64));
+    group.bench_function("per batch of the first 1000 sample molecules", |b| {
+        b.iter(|| {
+            set.iter()
+                .map(|p| symmetry_number(black_box(&p.mol)).total)
+                .fold(0u64, u64::wrapping_add)
+        })
+    });
+    group.finish();
     for &(name, smiles) in CASES {
         let Ok(mol) = parse_smiles(smiles) else {
             continue;

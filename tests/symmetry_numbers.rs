@@ -213,3 +213,36 @@ fn very_large_molecules_get_a_flagged_lower_bound() {
     assert_eq!(info.total, 9);
     assert!(info.notes.iter().any(|n| n.contains("search was skipped")));
 }
+
+/// C70 as PubChem writes it (CID 16131935, Kekulé form from the identifier table of the
+/// `chemicals` package): D5h, whose proper rotations number 10 (common knowledge).
+const C70: &str = "C12=C3C4=C5C6=C7C8=C9C%10=C%11C%12=C%13C%10=C%10C8=C5C1=C%10C1=C%13C5=C8C1=C2C1=C3C2=C3C%10=C%13C%14=C3C1=C8C1=C3C5=C%12C5=C8C%11=C%11C9=C7C7=C9C6=C4C2=C2C%10=C4C(=C29)C2=C6C(=C8C8=C9C6=C4C%13=C9C(=C%141)C3=C85)C%11=C27";
+
+#[test]
+fn c70_has_ten_rotations() {
+    let info = sym(C70);
+    assert_eq!((info.total, info.chiral), (10, false));
+    // Also on the canonical form the estimate uses (its Kekulé structure is not symmetric).
+    let p = ringheat::molecule::PerceivedMolecule::from_smiles(C70).unwrap();
+    assert_eq!(symmetry_number(&p.mol).total, 10);
+}
+
+/// Closed forms, exact at every size up to 500 carbons (sigma used to come out 0 from 128
+/// carbons on): an n-alkane has sigma 18 (C2v-like external 2 of the extended chain times two
+/// methyl rotors of 3; ethane D3d 6 x 3 is 18 too), a 2-methylalkane from isopentane on 27 (three methyl rotors),
+/// and a cycloalkane CnH2n in the flat-graph convention 2n (Dnh rotations).
+#[test]
+fn alkanes_and_cycloalkanes_follow_closed_forms() {
+    let sizes: Vec<usize> = (3..=40)
+        .chain([64, 100, 127, 128, 150, 200, 201, 256, 333, 500])
+        .collect();
+    for &n in &sizes {
+        assert_eq!(sym(&"C".repeat(n)).total, 18, "n-alkane C{n}");
+        let ring = format!("C1{}1", "C".repeat(n - 1));
+        assert_eq!(sym(&ring).total, 2 * n as u64, "cycloalkane C{n}");
+        if n >= 5 {
+            let iso = format!("CC(C){}", "C".repeat(n - 3));
+            assert_eq!(sym(&iso).total, 27, "2-methylalkane C{n}");
+        }
+    }
+}

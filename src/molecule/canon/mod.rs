@@ -38,7 +38,7 @@
 
 pub(crate) mod prepare;
 mod ranking;
-mod resonance;
+pub(crate) mod resonance;
 pub(crate) mod stereo;
 mod writer;
 

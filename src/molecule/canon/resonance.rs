@@ -238,3 +238,27 @@ impl Blossom {
         }
     }
 }
+
+/// Per bond of `mol` (by edge index): whether its order differs between Kekulé structures,
+/// by the rule of [`resonant_bonds`], on the molecule as it is (hydrogen nodes kept).
+pub(crate) fn resonant_bonds_of(mol: &crate::molecule::Molecule) -> Vec<bool> {
+    use petgraph::visit::EdgeRef;
+    let atoms: Vec<Atom> = mol.graph.node_weights().cloned().collect();
+    let ring = crate::molecule::kekulize::ring_bonds(&mol.graph);
+    let mut adj = vec![Vec::new(); atoms.len()];
+    let mut bonds = Vec::with_capacity(mol.bond_count());
+    for e in mol.graph.edge_references() {
+        let (a, b) = (e.source().index(), e.target().index());
+        adj[a].push((b, bonds.len()));
+        adj[b].push((a, bonds.len()));
+        bonds.push(PreparedBond {
+            a,
+            b,
+            order: e.weight().order,
+            resonant: false,
+            ring: ring[e.id().index()],
+            direction: None,
+        });
+    }
+    resonant_bonds(&atoms, &adj, &bonds)
+}

@@ -113,6 +113,9 @@ pub(crate) fn build(mol: &Molecule) -> Built {
     });
     let n0 = mol.atom_count();
     let (resonant_atom, resonant_bond) = resonant_terminals(mol);
+    // Bonds whose order differs between Kekulé structures share the aromatic colour, so the
+    // symmetry does not follow the Kekulé form given (C70 keeps its ten rotations).
+    let kekule_resonant = crate::molecule::canon::resonance::resonant_bonds_of(mol);
     let mut colours: HashMap<(u8, i8, u16, u8), u32> = HashMap::new();
     let mut colour_of = |key: (u8, i8, u16, u8)| {
         let next = colours.len() as u32;
@@ -141,7 +144,7 @@ pub(crate) fn build(mol: &Molecule) -> Built {
             continue;
         };
         let bond = &mol.graph[e];
-        let aromatic = bond.aromatic || perceived.graph[e].aromatic;
+        let aromatic = bond.aromatic || perceived.graph[e].aromatic || kekule_resonant[e.index()];
         let colour = if resonant_bond[e.index()] {
             RESONANT
         } else if aromatic {

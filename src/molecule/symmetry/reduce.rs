@@ -73,6 +73,7 @@ pub(crate) fn fold_terminals(g: &LabelledGraph) -> Folded {
             }
         }
         let mut removed = vec![false; n as usize];
+        let mut halved = vec![false; g.units.len()];
         let mut changed = false;
         for c in 0..n {
             let set = &sets[c as usize];
@@ -88,9 +89,20 @@ pub(crate) fn fold_terminals(g: &LabelledGraph) -> Folded {
                     removed[t as usize] = true;
                 }
             }
-            for s in set {
-                factor = factor.saturating_mul(factorial(s.2));
+            // k! per set, halved at once for a freed unit (k! / 2 is whole for k >= 2), so a
+            // saturated product is never divided afterwards (that gave sigma 0 for long chains).
+            let mut here: u128 = set
+                .iter()
+                .fold(1, |acc, s| acc.saturating_mul(factorial(s.2)));
+            // Once per freed unit (a double-bond unit has two centres), at a centre whose own
+            // product is even.
+            if let Some(u) = g.unit_at[c as usize].filter(|&u| freed[u as usize]) {
+                if !halved[u as usize] && set.iter().any(|s| s.2 >= 2) {
+                    here /= 2;
+                    halved[u as usize] = true;
+                }
             }
+            factor = factor.saturating_mul(here);
             let key = (g.colour[c as usize], set.clone());
             let colour = *interned.entry(key).or_insert_with(|| {
                 next_colour += 1;
@@ -101,9 +113,6 @@ pub(crate) fn fold_terminals(g: &LabelledGraph) -> Folded {
         }
         if !changed {
             break;
-        }
-        for _ in freed.iter().filter(|&&f| f) {
-            factor /= 2;
         }
         let mut index = 0;
         g.units.retain(|_| {

@@ -11,6 +11,7 @@
 //! although a rigid rotation turns both; the external part then comes out too small there.
 
 use super::labelled::LabelledGraph;
+use super::partition::Partition;
 use super::reduce::fold_terminals;
 use super::search::{proper_group_order, SearchLimit};
 
@@ -112,23 +113,79 @@ pub(crate) struct Rotor {
     pub symmetry: u128,
 }
 
+/// Whether the rotor on the `b` side of the bond a-b can be more than 1, judged from the
+/// equitable partition `cell_of` of the whole graph (orbits lie inside its cells). The proper
+/// rotations about the bond that fix the `a` side act on the other neighbours of `b`: for two
+/// neighbours, or three around a stereo unit (a cyclic group), the action is transitive or
+/// trivial, so neighbours in different cells mean a rotor of 1. Other cases are searched.
+fn may_rotate(g: &LabelledGraph, cell_of: &[u32], a: u32, b: u32) -> bool {
+    let others: Vec<u32> = g.adj[b as usize]
+        .iter()
+        .map(|e| e.0)
+        .filter(|&w| w != a)
+        .collect();
+    match others.len() {
+        0 | 1 => false,
+        2 => cell_of[others[0] as usize] == cell_of[others[1] as usize],
+        3 if g.unit_at[b as usize].is_some() => others
+            .iter()
+            .all(|&w| cell_of[w as usize] == cell_of[others[0] as usize]),
+        _ => true,
+    }
+}
+
+/// The rotor of the `b` side without a search when every other neighbour of `b` is a terminal
+/// atom of one colour on bonds of one colour (methyl, CF3, NH3+): those terminals are permuted
+/// freely, so the rotor is their number, or 3 for three of them around a stereo unit (the
+/// proper rotations of a tetrahedral centre that fix `a` form a cyclic group of order 3).
+fn terminal_rotor(g: &LabelledGraph, a: u32, b: u32) -> Option<u128> {
+    let others: Vec<(u32, u8)> = g.adj[b as usize]
+        .iter()
+        .copied()
+        .filter(|e| e.0 != a)
+        .collect();
+    let (first, bond) = *others.first()?;
+    let alike = others.iter().all(|&(w, c)| {
+        g.degree(w) == 1 && c == bond && g.colour[w as usize] == g.colour[first as usize]
+    });
+    if !alike {
+        return None;
+    }
+    match (g.unit_at[b as usize].is_some(), others.len()) {
+        (false, k) => Some(k as u128),
+        (true, 3) => Some(3),
+        _ => None,
+    }
+}
+
 /// The rotors of `g` with a symmetry number above 1.
 pub(crate) fn rotors(g: &LabelledGraph) -> Result<Vec<Rotor>, SearchLimit> {
+    let mut partition = Partition::by_colour(g);
+    partition.refine(g);
+    let cell_of = &partition.cell_of;
     let mut out = Vec::new();
     for (a, b) in bridges(g) {
         if g.bond(a, b) != Some(1) || g.degree(a) < 2 || g.degree(b) < 2 {
             continue;
         }
+        let (rotate_b, rotate_a) = (may_rotate(g, cell_of, a, b), may_rotate(g, cell_of, b, a));
+        if !rotate_a && !rotate_b {
+            continue;
+        }
         let side_b = side(g, b, a);
         let side_a = side(g, a, b);
-        let (small, large) = if side_b.len() <= side_a.len() {
-            ((a, b, side_b), (b, a, side_a))
-        } else {
-            ((b, a, side_a), (a, b, side_b))
-        };
-        let mut best = rotor_orbit(g, small.0, &small.2)?;
-        if best < (g.degree(large.1) as u128).saturating_sub(1) {
-            best = best.max(rotor_orbit(g, large.0, &large.2)?);
+        // Each side that may rotate is searched, the smaller first; the larger orbit counts.
+        let mut sides = vec![(a, side_b, rotate_b), (b, side_a, rotate_a)];
+        sides.sort_by_key(|s| s.1.len());
+        let mut best = 1u128;
+        for (anchor, rotor, may) in &sides {
+            if *may && best < (g.degree(rotor[0]) as u128).saturating_sub(1) {
+                let orbit = match terminal_rotor(g, *anchor, rotor[0]) {
+                    Some(k) => k,
+                    None => rotor_orbit(g, *anchor, rotor)?,
+                };
+                best = best.max(orbit);
+            }
         }
         if best > 1 {
             out.push(Rotor {
