@@ -31,7 +31,9 @@
 //! that is the whole compound (halomethanes, ketene, ...) is the measurement itself and is not
 //! bounded. Rejections are printed.
 //!
-//! Run: `cargo run --release --example derive_missing_groups` (or all generators in order:
+//! Run: `cargo run --release --example derive_missing_groups`. For cross-validation
+//! (tools/cross_validate.py), `RINGHEAT_DERIVE_EXCLUDE=FILE` names CAS numbers (one a line) the
+//! derivation may not use and `RINGHEAT_DERIVE_OUT=DIR` writes the derived files there instead. (or all generators in order:
 //! `python3 tools/regenerate.py`)
 
 use std::collections::{BTreeMap, HashMap, HashSet};
@@ -430,7 +432,25 @@ cp_temperatures = [300, 400, 500, 600, 800, 1000, 1500]\n";
 fn main() {
     let root = PathBuf::from(env!("CARGO_MANIFEST_DIR"));
     let tables_dir = root.join("group-tables");
-    let refs = read_reference(&root.join("tests/reference/thermo_reference.tsv"));
+    // Cross-validation (tools/cross_validate.py): compounds to leave out, and where to write.
+    let excluded: HashSet<String> = std::env::var("RINGHEAT_DERIVE_EXCLUDE")
+        .ok()
+        .map(|path| {
+            std::fs::read_to_string(&path)
+                .unwrap_or_else(|e| panic!("{path}: {e}"))
+                .lines()
+                .map(|l| l.trim().to_string())
+                .filter(|l| !l.is_empty())
+                .collect()
+        })
+        .unwrap_or_default();
+    let out_dir = std::env::var("RINGHEAT_DERIVE_OUT")
+        .map(PathBuf::from)
+        .unwrap_or_else(|_| tables_dir.clone());
+    let refs: Vec<Reference> = read_reference(&root.join("tests/reference/thermo_reference.tsv"))
+        .into_iter()
+        .filter(|r| !excluded.contains(&r.cas))
+        .collect();
     let trc = read_trc(&root.join("tests/reference/trc_heat_capacity.tsv"));
     let outside_rings = groups_outside_rings(&refs);
     let work = root.join("target/derive-groups");
@@ -874,17 +894,17 @@ fn main() {
         )
     };
     std::fs::write(
-        tables_dir.join("groups-derived.toml"),
+        out_dir.join("groups-derived.toml"),
         format!("{}{META}{groups_out}", header("Benson groups")),
     )
     .expect("write groups-derived.toml");
     std::fs::write(
-        tables_dir.join("rings-derived.toml"),
+        out_dir.join("rings-derived.toml"),
         format!("{}{META}{rings_out}", header("Ring corrections")),
     )
     .expect("write rings-derived.toml");
     std::fs::write(
-        tables_dir.join("corrections-derived.toml"),
+        out_dir.join("corrections-derived.toml"),
         format!("{}{META}{corrections_out}", header("Non-ring corrections")),
     )
     .expect("write corrections-derived.toml");

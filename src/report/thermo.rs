@@ -153,7 +153,7 @@ pub fn render_table(rows: &[Row<EstimateRow>], unit: EnergyUnit) -> String {
     out.push_str(&temperature_tables(rows, unit));
     out.push_str(
         "Gas phase, ideal gas at 1 bar. Uncertainties combine the table uncertainties of the \
-         terms; they do not include the method's own error.\n",
+         terms and the method's scatter per term family (src/thermo/uncertainty.rs).\n",
     );
     out
 }

@@ -12,6 +12,7 @@ use super::flags::{Flag, Property};
 use super::quantity::Quantity;
 use super::terms::{hf298_sums, s298_cp_sums};
 pub use super::terms::{StepTerms, Term, TermKind, TermNote};
+use super::uncertainty::method_variance;
 use crate::groups::assign::{assign_groups, stand_in_candidates, GroupAssignment};
 use crate::groups::interactions::{
     count_interactions, trans_ring_correction, trans_ring_double_bonds,
@@ -533,15 +534,23 @@ fn total(steps: StepTerms, symmetry: SymmetryUsed, overridden: bool) -> ThermoEs
     let (s, cp) = s298_cp_sums(&terms);
     let symmetry_term = -GAS_CONSTANT_J_PER_MOL_K * (symmetry.total.max(1) as f64).ln()
         + GAS_CONSTANT_J_PER_MOL_K * f64::from(symmetry.optical_isomers.max(1)).ln();
-    let s298_j = s
-        .quantity()
-        .map(|q| Quantity::new(q.value + symmetry_term, q.uncertainty));
+    // The method's own scatter per term family (src/thermo/uncertainty.rs) on top of the
+    // tables' uncertainties.
+    let (method_hf, method_s) = method_variance(&terms);
+    let s298_j = s.quantity().map(|q| {
+        Quantity::new(
+            q.value + symmetry_term,
+            q.uncertainty.hypot(method_s.sqrt()),
+        )
+    });
     let cp_j = cp
         .iter()
         .map(|c| c.quantity())
         .collect::<Option<Vec<Quantity>>>()
         .and_then(|v| <[Quantity; 7]>::try_from(v).ok());
-    let hf298_kj = hf.quantity();
+    let hf298_kj = hf
+        .quantity()
+        .map(|q| Quantity::new(q.value, q.uncertainty.hypot(method_hf.sqrt())));
     for (property, missing) in [
         (Property::Hf298, hf298_kj.is_none()),
         (Property::S298, s298_j.is_none()),

@@ -10,6 +10,7 @@ pub mod polynomials;
 pub mod quantity;
 pub mod temperature;
 pub mod terms;
+pub mod uncertainty;
 pub mod wilhoit;
 
 pub use estimate::{EstimateError, EstimateOptions, GroupAdditivity, ThermoEstimate};
