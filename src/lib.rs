@@ -20,8 +20,11 @@
 pub mod computed;
 pub mod data;
 pub mod groups;
+pub mod hazard;
 pub mod input;
 pub mod molecule;
+pub mod phase;
+pub mod polymer;
 pub mod reactions;
 pub mod report;
 pub mod strain;

@@ -1,9 +1,12 @@
 //! Argument parsing and the subcommands; each command reads input, calls the library, prints.
 
 mod check_computed;
+mod energetics;
 mod estimate;
+mod hazard;
 mod inputs;
 mod polynomials;
+mod polymerise;
 mod reactions;
 mod strain;
 mod structure;
@@ -34,6 +37,12 @@ enum Command {
     CheckComputed(check_computed::CheckComputedArgs),
     /// NASA-7 polynomials of each molecule's estimate, as Cantera YAML species entries.
     Polynomials(polynomials::PolynomialsArgs),
+    /// dH, dS, dG and K of reactions (reaction SMILES with coefficients), per mole and per gram.
+    Energetics(energetics::EnergeticsArgs),
+    /// Ring-opening polymerisation: repeat unit, dH_p, dS_p, ceiling temperature, verdict.
+    Polymerise(polymerise::PolymeriseArgs),
+    /// Process-hazard screening of the steps of a job file; report as table, CSV, Markdown, HTML.
+    Hazard(hazard::HazardArgs),
 }
 
 /// Runs the command line. Bad records become error rows; only unusable options or tables fail.
@@ -46,5 +55,8 @@ pub fn run() -> Result<ExitCode, Box<dyn std::error::Error>> {
         Command::Reactions(args) => reactions::run(args),
         Command::CheckComputed(args) => check_computed::run(args),
         Command::Polynomials(args) => polynomials::run(args),
+        Command::Energetics(args) => energetics::run(args),
+        Command::Polymerise(args) => polymerise::run(args),
+        Command::Hazard(args) => hazard::run(args),
     }
 }

@@ -20,6 +20,8 @@
 
 mod balance;
 pub mod cbh;
+pub mod energetics;
+pub mod equation;
 pub mod error;
 pub mod fragment;
 mod geometry;
