@@ -6,7 +6,7 @@
 //! `mol/L` (also `mol/l`, `M`); molar energy `kJ/mol`, `kcal/mol`. The uncertainty may be written
 //! `±` or `+-` between the number and the unit.
 
-use crate::thermo::quantity::JOULES_PER_CALORIE;
+use crate::units::JOULES_PER_CALORIE;
 use crate::thermo::Quantity;
 
 /// What a quantity measures, with the unit it is read into.

@@ -73,8 +73,8 @@ impl OpenedBond {
     pub fn describe(&self, p: &PerceivedMolecule) -> String {
         format!(
             "atoms {}-{} ({}{}{}), {}",
-            self.a.index() + 1,
-            self.b.index() + 1,
+            p.input_atom_number(self.a),
+            p.input_atom_number(self.b),
             p.mol.atom(self.a).element,
             if self.order == BondOrder::Double {
                 "="
@@ -214,8 +214,8 @@ pub fn usual_bond(p: &PerceivedMolecule) -> Result<OpenedBond, OpeningError> {
             .unwrap_or(PRIORITY.len())
     };
     candidates.sort_by_key(|c| {
-        let (lo, hi) = if c.a < c.b { (c.a, c.b) } else { (c.b, c.a) };
-        (rank(c.kind), lo.index(), hi.index())
+        let (i, j) = (p.input_atom_number(c.a), p.input_atom_number(c.b));
+        (rank(c.kind), i.min(j), i.max(j))
     });
     candidates
         .into_iter()
@@ -231,12 +231,14 @@ pub fn user_bond(
     second: usize,
 ) -> Result<OpenedBond, OpeningError> {
     let n = p.mol.atom_count();
-    for i in [first, second] {
-        if i == 0 || i > n {
-            return Err(OpeningError::NoSuchAtom(i, n));
-        }
-    }
-    let (x, y) = (NodeIndex::new(first - 1), NodeIndex::new(second - 1));
+    // Perception renumbers atoms canonically; find the atoms the user numbered.
+    let node = |i: usize| {
+        p.mol
+            .atoms()
+            .find(|&a| p.input_atom_number(a) == i)
+            .ok_or(OpeningError::NoSuchAtom(i, n))
+    };
+    let (x, y) = (node(first)?, node(second)?);
     let edge = p
         .mol
         .graph

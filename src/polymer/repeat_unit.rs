@@ -23,7 +23,7 @@ use crate::molecule::{Atom, Bond, Element, Molecule, PerceivedMolecule};
 use crate::phase::chickos::{count_groups, ChickosCounts};
 use crate::phase::PhaseData;
 use crate::thermo::estimate::{Term, TermKind};
-use crate::thermo::quantity::GAS_CONSTANT;
+use crate::units::GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity};
 
 /// Chain length whose difference to one unit shorter gives the unit.
@@ -113,7 +113,7 @@ pub fn chain(p: &PerceivedMolecule, bond: &OpenedBond, n: usize) -> Molecule {
     out
 }
 
-type TermKey = (String, String, Option<String>);
+type TermKey = (String, String, String);
 
 fn kind_name(k: TermKind) -> String {
     format!("{k:?}")
@@ -122,7 +122,8 @@ fn kind_name(k: TermKind) -> String {
 fn term_counts(terms: &[Term]) -> BTreeMap<TermKey, (i64, Term)> {
     let mut out: BTreeMap<TermKey, (i64, Term)> = BTreeMap::new();
     for t in terms {
-        let key = (kind_name(t.kind), t.label.clone(), t.note.clone());
+        let notes: Vec<String> = t.notes.iter().map(|n| n.to_string()).collect();
+        let key = (kind_name(t.kind), t.label.clone(), notes.join("; "));
         out.entry(key)
             .and_modify(|e| e.0 += i64::from(t.count))
             .or_insert((i64::from(t.count), t.clone()));
@@ -205,7 +206,12 @@ pub fn repeat_unit(
     flags.extend(
         long.flags
             .iter()
-            .filter(|f| f.contains("stand") || f.contains("not applied"))
+            .filter(|f| {
+                matches!(
+                    f.category(),
+                    crate::thermo::FlagCategory::StandIn | crate::thermo::FlagCategory::NotApplied
+                )
+            })
             .map(|f| format!("repeat unit: {f}")),
     );
     let (mut hf, mut hf_var, mut s, mut s_var, mut s_known) = (0.0, 0.0, 0.0, 0.0, true);

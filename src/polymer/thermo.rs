@@ -21,7 +21,7 @@ use super::repeat_unit::{repeat_unit, RepeatUnit, RepeatUnitError};
 use crate::molecule::{Molecule, PerceivedMolecule};
 use crate::phase::Phase;
 use crate::reactions::energetics::{EnergeticsData, SpeciesThermo, SpeciesValues};
-use crate::thermo::quantity::{GAS_CONSTANT, T_REF_K};
+use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 use crate::thermo::Quantity;
 
 /// Standard pressure, Pa (1 bar).
@@ -72,17 +72,17 @@ pub struct PolymerisationOptions {
     pub unit_dhvap_kj: Option<Quantity>,
 }
 
-/// Whether the polymerisation goes at the stated conditions.
-#[derive(Debug, Clone, PartialEq, serde::Serialize)]
-#[serde(tag = "verdict", rename_all = "snake_case")]
+/// Whether the polymerisation goes at the stated conditions, by the sign of dG_p (or of dH_p
+/// when there is no entropy); [`Polymerisation::verdict_within_uncertainty`] says when zero lies
+/// within the uncertainty.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+#[serde(rename_all = "snake_case")]
 pub enum Favourability {
-    /// dG_p < 0 beyond its uncertainty.
+    /// dG_p < 0.
     Favoured,
-    /// dG_p > 0 beyond its uncertainty.
+    /// dG_p > 0 (or dH_p > 0 for a small ring without an entropy).
     NotFavoured,
-    /// |dG_p| within its uncertainty.
-    Undecided,
-    /// No entropy, so no dG_p; judged from dH_p alone when that is positive.
+    /// No entropy and dH_p < 0: not judged.
     Unknown,
 }
 
@@ -133,6 +133,8 @@ pub struct Polymerisation {
     pub dg_p_kj: Option<Quantity>,
     /// Favoured or not.
     pub favourability: Favourability,
+    /// True when dG_p (or dH_p) is zero within its uncertainty, so the verdict could go either way.
+    pub verdict_within_uncertainty: bool,
     /// Ceiling (or floor) temperature, K, with uncertainty.
     pub limit_k: Option<Quantity>,
     /// Which limit it is.
@@ -294,22 +296,20 @@ pub fn polymerisation(
             "monomer concentration not given: {DEFAULT_CONCENTRATION_MOL_L} mol/L assumed"
         ));
     }
-    let (dg, favourability, limit_kind, limit_k) = match ds_p {
+    let (dg, favourability, within, limit_kind, limit_k) = match ds_p {
         Some(s) => {
             let s_eff = s.value + GAS_CONSTANT * concentration.ln();
             let dg = Quantity::new(
                 dh_p.value - t * s_eff / 1000.0,
                 dh_p.uncertainty.hypot(t * s.uncertainty / 1000.0),
             );
-            let fav = if dg.value + dg.uncertainty < 0.0 {
+            let fav = if dg.value < 0.0 {
                 Favourability::Favoured
-            } else if dg.value - dg.uncertainty > 0.0 {
-                Favourability::NotFavoured
             } else {
-                Favourability::Undecided
+                Favourability::NotFavoured
             };
             let (kind, limit) = dainton_ivin(dh_p, s, concentration);
-            (Some(dg), fav, Some(kind), limit)
+            (Some(dg), fav, dg.value.abs() <= dg.uncertainty, Some(kind), limit)
         }
         None => {
             flags.push(
@@ -319,19 +319,15 @@ pub fn polymerisation(
             // atoms (Dainton and Ivin 1958, recalled from memory), so dH_p > 0 means not favoured.
             let small_ring = p.rings.rings.iter().all(|r| r.size() <= 8);
             let fav = if dh_p.value > 0.0 && small_ring {
-                flags.push(format!(
-                    "judged from dH_p > 0 alone (dS_p of rings up to eight atoms is negative){}",
-                    if dh_p.value - dh_p.uncertainty <= 0.0 {
-                        "; dH_p is zero within its uncertainty"
-                    } else {
-                        ""
-                    }
-                ));
+                flags.push(
+                    "judged from dH_p > 0 alone (dS_p of rings up to eight atoms is negative)"
+                        .to_string(),
+                );
                 Favourability::NotFavoured
             } else {
                 Favourability::Unknown
             };
-            (None, fav, None, None)
+            (None, fav, dh_p.value.abs() <= dh_p.uncertainty, None, None)
         }
     };
     Ok(Polymerisation {
@@ -350,6 +346,7 @@ pub fn polymerisation(
         temperature_k: t,
         dg_p_kj: dg,
         favourability,
+        verdict_within_uncertainty: within,
         limit_k,
         limit_kind,
         flags,

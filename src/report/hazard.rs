@@ -273,6 +273,9 @@ pub fn render_csv(s: &Screening) -> String {
         }
     }
     let mut out = write_csv(&header, &rows);
+    for l in heading_lines(s) {
+        out.push_str(&format!("# {l}\n"));
+    }
     for p in &s.problems {
         out.push_str(&format!("# {p}\n"));
     }

@@ -11,7 +11,7 @@ use crate::polymer::{
     polymerisation, Favourability, LimitKind, PolymerState, Polymerisation, PolymerisationOptions,
 };
 use crate::reactions::energetics::EnergeticsData;
-use crate::thermo::quantity::T_REF_K;
+use crate::units::T_REF_K;
 
 /// One monomer's result.
 #[derive(Debug, Clone, serde::Serialize)]
@@ -66,12 +66,14 @@ pub fn verdict_text(p: &Polymerisation) -> String {
             ""
         }
     );
+    let margin = if p.verdict_within_uncertainty {
+        " (marginal: zero lies within the uncertainty, so the verdict could go either way)"
+    } else {
+        ""
+    };
     match p.favourability {
-        Favourability::Favoured => format!("favoured {conditions}"),
-        Favourability::NotFavoured => format!("not favoured {conditions}"),
-        Favourability::Undecided => {
-            format!("undecided {conditions}: dG_p is zero within its uncertainty")
-        }
+        Favourability::Favoured => format!("favoured {conditions}{margin}"),
+        Favourability::NotFavoured => format!("not favoured {conditions}{margin}"),
         Favourability::Unknown => format!("not judged {conditions}: no entropy of polymerisation"),
     }
 }
@@ -247,7 +249,11 @@ pub fn render_csv(rows: &[Row<PolymerRow>]) -> String {
                     p.limit_kind.map(|k| format!("{k:?}")).unwrap_or_default(),
                     cell(p.limit_k.map(|q| q.value), 1),
                     cell(p.limit_k.map(|q| q.uncertainty), 1),
-                    format!("{:?}", p.favourability),
+                    format!(
+                        "{:?}{}",
+                        p.favourability,
+                        if p.verdict_within_uncertainty { " (marginal)" } else { "" }
+                    ),
                 ]);
             }
             Row::Failed { error } => lines.push(error.csv_cells(header.len())),

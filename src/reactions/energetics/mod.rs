@@ -26,7 +26,7 @@ use std::collections::BTreeMap;
 use super::equation::{EquationError, ReactionEquation};
 use crate::phase::Phase;
 use crate::strain::analyse_strain;
-use crate::thermo::quantity::{GAS_CONSTANT, T_REF_K};
+use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 use crate::thermo::Quantity;
 
 pub use species::{EnergeticsData, SpeciesState, SpeciesThermo, SpeciesValues};

@@ -13,7 +13,7 @@ use crate::molecule::formula::Formula;
 use crate::molecule::{Molecule, PerceivedMolecule};
 use crate::phase::{Phase, PhaseData, Vaporisation};
 use crate::strain::{resolve_target_hf, StrainData, TargetHf};
-use crate::thermo::quantity::T_REF_K;
+use crate::units::T_REF_K;
 use crate::thermo::temperature::{cp_at, cp_knots, integrate};
 use crate::thermo::{EstimateOptions, Quantity};
 
@@ -142,8 +142,14 @@ impl SpeciesThermo {
             flags.extend(
                 e.flags
                     .iter()
-                    .filter(|f| f.contains("stand") || f.contains("not applied"))
-                    .cloned(),
+                    .filter(|f| {
+                        matches!(
+                            f.category(),
+                            crate::thermo::FlagCategory::StandIn
+                                | crate::thermo::FlagCategory::NotApplied
+                        )
+                    })
+                    .map(|f| f.to_string()),
             );
         }
         let (s_gas, cp_gas_j, s_cp_source) = match data.small.get(&key) {
