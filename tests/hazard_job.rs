@@ -32,12 +32,24 @@ fn demo_job_screens_every_step() {
         assert!((r.max_t_k.value - r.process_t_k.value - r.adiabatic_rise_k.value).abs() < 1e-9);
         assert!(!r.sources.is_empty());
     }
-    let eo = s.steps.iter().find(|s| s.name.contains("ethylene oxide")).expect("EO step");
+    let eo = s
+        .steps
+        .iter()
+        .find(|s| s.name.contains("ethylene oxide"))
+        .expect("EO step");
     let eo = eo.result.as_ref().expect("screened");
-    assert_eq!(eo.screening_line, ringheat::hazard::severity::ScreeningLine::Above);
+    assert_eq!(
+        eo.screening_line,
+        ringheat::hazard::severity::ScreeningLine::Above
+    );
     // Ethylene oxide hydrolysis, liquid: about -97 kJ/mol (tests/reaction_energetics.rs).
     assert!((eo.dh_kj_per_mol.value + 97.0).abs() < 5.0);
-    for text in [render_table(&s), render_markdown(&s), render_html(&s), render_csv(&s)] {
+    for text in [
+        render_table(&s),
+        render_markdown(&s),
+        render_html(&s),
+        render_csv(&s),
+    ] {
         for c in CAUTIONS {
             assert!(text.contains(c), "a caution is missing");
         }
@@ -47,7 +59,10 @@ fn demo_job_screens_every_step() {
     assert!(html.contains("<svg id=\"ringheat-chart\""));
     assert!(html.contains("class=\"band band-high\""));
     assert_eq!(html.matches("class=\"bar-rise\"").count(), 6);
-    assert!(!html.contains("http://") || html.matches("http://").count() == 1, "only the SVG namespace");
+    assert!(
+        !html.contains("http://") || html.matches("http://").count() == 1,
+        "only the SVG namespace"
+    );
     assert!(!html.contains("<script"));
 }
 
@@ -65,9 +80,27 @@ fn bad_job_names_file_line_and_key_and_keeps_the_good_step() {
             + 1
     };
     let expect = [
-        (2, format!("{BAD}:{}: step[3].batch_mass: unit `kJ` is not one of g, kg, t", line_of("1250 kJ"))),
-        (3, format!("{BAD}:{}: step[4].monomer: unknown compound `LA`", line_of("monomer = \"LA\""))),
-        (4, format!("{BAD}:{}: step[5].reaction: unbalanced: reactants C2H4O, products C2H6O2", line_of("C1CO1>>OCCO"))),
+        (
+            2,
+            format!(
+                "{BAD}:{}: step[3].batch_mass: unit `kJ` is not one of g, kg, t",
+                line_of("1250 kJ")
+            ),
+        ),
+        (
+            3,
+            format!(
+                "{BAD}:{}: step[4].monomer: unknown compound `LA`",
+                line_of("monomer = \"LA\"")
+            ),
+        ),
+        (
+            4,
+            format!(
+                "{BAD}:{}: step[5].reaction: unbalanced: reactants C2H4O, products C2H6O2",
+                line_of("C1CO1>>OCCO")
+            ),
+        ),
     ];
     for (i, wanted) in &expect {
         let errors = s.steps[*i].result.as_ref().expect_err("a bad step");
@@ -87,8 +120,11 @@ fn bad_job_names_file_line_and_key_and_keeps_the_good_step() {
         .expect("second step");
     let name_line = header_line + 1;
     assert!(
-        errors.iter().any(|e| e.contains("step[2].batch_mass: missing")
-            && (e.starts_with(&format!("{BAD}:{header_line}:")) || e.starts_with(&format!("{BAD}:{name_line}:")))),
+        errors
+            .iter()
+            .any(|e| e.contains("step[2].batch_mass: missing")
+                && (e.starts_with(&format!("{BAD}:{header_line}:"))
+                    || e.starts_with(&format!("{BAD}:{name_line}:")))),
         "{errors:?}"
     );
     let table = render_table(&s);

@@ -36,7 +36,9 @@ struct Check {
 fn dh_p_against_published_values() {
     let data = EnergeticsData::bundled().expect("bundled data");
     let text = include_str!("reference/polymerisation_published.toml");
-    let checks = toml::from_str::<File>(text).expect("check file reads").monomer;
+    let checks = toml::from_str::<File>(text)
+        .expect("check file reads")
+        .monomer;
     let options = PolymerisationOptions {
         state: PolymerState::LiquidCondensed,
         ..PolymerisationOptions::default()
@@ -54,15 +56,28 @@ fn dh_p_against_published_values() {
         if d.abs() <= TOLERANCE_KJ {
             within.push(c.name.as_str());
         } else {
-            outside.push(format!("{} ({d:+.1}; flags: {})", c.name, p.flags.join("; ")));
+            outside.push(format!(
+                "{} ({d:+.1}; flags: {})",
+                c.name,
+                p.flags.join("; ")
+            ));
         }
     }
-    println!("within {TOLERANCE_KJ} kJ/mol: {} of {}", within.len(), checks.len());
+    println!(
+        "within {TOLERANCE_KJ} kJ/mol: {} of {}",
+        within.len(),
+        checks.len()
+    );
     for o in &outside {
         println!("  outside: {o}");
     }
     assert!(within.len() >= 8, "only {} within tolerance", within.len());
-    for must in ["beta-propiolactone", "epsilon-caprolactone", "cyclopentene", "cyclobutane"] {
+    for must in [
+        "beta-propiolactone",
+        "epsilon-caprolactone",
+        "cyclopentene",
+        "cyclobutane",
+    ] {
         assert!(within.contains(&must), "{must} outside the tolerance");
     }
 }
@@ -150,5 +165,12 @@ fn repeat_unit_has_no_ring_term_and_the_monomer_formula() {
         &PolymerisationOptions::default(),
     )
     .expect("polymerisation");
-    assert!(p.unit.terms.iter().any(|t| t.label.contains("cyclopentane")), "{:?}", p.unit.terms);
+    assert!(
+        p.unit
+            .terms
+            .iter()
+            .any(|t| t.label.contains("cyclopentane")),
+        "{:?}",
+        p.unit.terms
+    );
 }

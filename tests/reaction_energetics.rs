@@ -30,7 +30,9 @@ struct Check {
 
 fn checks() -> Vec<Check> {
     let text = include_str!("reference/reaction_heats_published.toml");
-    toml::from_str::<File>(text).expect("check file reads").reaction
+    toml::from_str::<File>(text)
+        .expect("check file reads")
+        .reaction
 }
 
 fn key(smiles: &str) -> String {
@@ -97,7 +99,11 @@ fn estimates_reproduce_published_heats_within_their_uncertainty() {
             "{}: estimated {:.2} ± {:.2}, published {:.1}; difference {d:+.2}",
             c.name, r.dh298_kj.value, r.dh298_kj.uncertainty, c.dh_kj
         );
-        assert!(d.abs() <= r.dh298_kj.uncertainty, "{}: {d:+.2} kJ/mol", c.name);
+        assert!(
+            d.abs() <= r.dh298_kj.uncertainty,
+            "{}: {d:+.2} kJ/mol",
+            c.name
+        );
     }
 }
 

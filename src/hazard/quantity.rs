@@ -6,8 +6,8 @@
 //! `mol/L` (also `mol/l`, `M`); molar energy `kJ/mol`, `kcal/mol`. The uncertainty may be written
 //! `±` or `+-` between the number and the unit.
 
-use crate::units::JOULES_PER_CALORIE;
 use crate::thermo::Quantity;
+use crate::units::JOULES_PER_CALORIE;
 
 /// What a quantity measures, with the unit it is read into.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

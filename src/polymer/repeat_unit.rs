@@ -23,8 +23,8 @@ use crate::molecule::{Atom, Bond, Element, Molecule, PerceivedMolecule};
 use crate::phase::chickos::{count_groups, ChickosCounts};
 use crate::phase::PhaseData;
 use crate::thermo::estimate::{Term, TermKind};
-use crate::units::GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT;
 use crate::thermo::{EstimateOptions, GroupAdditivity, Quantity};
+use crate::units::GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT;
 
 /// Chain length whose difference to one unit shorter gives the unit.
 pub const CHAIN_UNITS: usize = 5;

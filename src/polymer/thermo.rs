@@ -21,8 +21,8 @@ use super::repeat_unit::{repeat_unit, RepeatUnit, RepeatUnitError};
 use crate::molecule::{Molecule, PerceivedMolecule};
 use crate::phase::Phase;
 use crate::reactions::energetics::{EnergeticsData, SpeciesThermo, SpeciesValues};
-use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 use crate::thermo::Quantity;
+use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 
 /// Standard pressure, Pa (1 bar).
 pub const STANDARD_PRESSURE_PA: f64 = 1.0e5;
@@ -309,7 +309,13 @@ pub fn polymerisation(
                 Favourability::NotFavoured
             };
             let (kind, limit) = dainton_ivin(dh_p, s, concentration);
-            (Some(dg), fav, dg.value.abs() <= dg.uncertainty, Some(kind), limit)
+            (
+                Some(dg),
+                fav,
+                dg.value.abs() <= dg.uncertainty,
+                Some(kind),
+                limit,
+            )
         }
         None => {
             flags.push(

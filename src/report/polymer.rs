@@ -252,7 +252,11 @@ pub fn render_csv(rows: &[Row<PolymerRow>]) -> String {
                     format!(
                         "{:?}{}",
                         p.favourability,
-                        if p.verdict_within_uncertainty { " (marginal)" } else { "" }
+                        if p.verdict_within_uncertainty {
+                            " (marginal)"
+                        } else {
+                            ""
+                        }
                     ),
                 ]);
             }

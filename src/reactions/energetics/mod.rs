@@ -26,8 +26,8 @@ use std::collections::BTreeMap;
 use super::equation::{EquationError, ReactionEquation};
 use crate::phase::Phase;
 use crate::strain::analyse_strain;
-use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 use crate::thermo::Quantity;
+use crate::units::{GAS_CONSTANT_J_PER_MOL_K as GAS_CONSTANT, T_REF_K};
 
 pub use species::{EnergeticsData, SpeciesState, SpeciesThermo, SpeciesValues};
 

@@ -13,9 +13,9 @@ use crate::molecule::formula::Formula;
 use crate::molecule::{Molecule, PerceivedMolecule};
 use crate::phase::{Phase, PhaseData, Vaporisation};
 use crate::strain::{resolve_target_hf, StrainData, TargetHf};
-use crate::units::T_REF_K;
 use crate::thermo::temperature::{cp_at, cp_knots, integrate};
 use crate::thermo::{EstimateOptions, Quantity};
+use crate::units::T_REF_K;
 
 /// Values a user gives for one species (kJ/mol), each replacing what ringheat would use.
 #[derive(Debug, Clone, Copy, Default, PartialEq)]
