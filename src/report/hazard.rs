@@ -76,6 +76,21 @@ pub fn step_cells(r: &StepResult) -> Vec<String> {
     ]
 }
 
+/// The step table's rows: a screened step's cells, or its name marked not screened.
+pub fn step_rows(s: &Screening) -> Vec<Vec<String>> {
+    s.steps
+        .iter()
+        .map(|step| match &step.result {
+            Ok(r) => step_cells(r),
+            Err(_) => {
+                let mut row = vec![step.name.clone(), "not screened (see errors)".to_string()];
+                row.extend(std::iter::repeat_n(String::new(), STEP_HEADER.len() - 2));
+                row
+            }
+        })
+        .collect()
+}
+
 /// The compound table's cells for one compound.
 pub fn compound_cells(c: &CompoundRow) -> Vec<String> {
     let strain_per_g = c.strain_kj.map(|q| q.scaled(1000.0 / c.molar_mass_g_mol));
@@ -157,15 +172,8 @@ pub fn render_table(s: &Screening) -> String {
     steps
         .load_preset(UTF8_FULL_CONDENSED)
         .set_header(STEP_HEADER.to_vec());
-    for step in &s.steps {
-        match &step.result {
-            Ok(r) => steps.add_row(step_cells(r)),
-            Err(_) => {
-                let mut row = vec![step.name.clone(), "not screened (see errors)".to_string()];
-                row.extend(std::iter::repeat_n(String::new(), STEP_HEADER.len() - 2));
-                steps.add_row(row)
-            }
-        };
+    for row in step_rows(s) {
+        steps.add_row(row);
     }
     out.push_str(&steps.to_string());
     out.push('\n');
@@ -314,18 +322,7 @@ pub fn render_markdown(s: &Screening) -> String {
     let rows: Vec<Vec<String>> = s.compounds.iter().map(compound_cells).collect();
     out.push_str(&md_table(&COMPOUND_HEADER, &rows));
     out.push_str("\n## Steps\n\n");
-    let rows: Vec<Vec<String>> = s
-        .steps
-        .iter()
-        .map(|step| match &step.result {
-            Ok(r) => step_cells(r),
-            Err(_) => {
-                let mut row = vec![step.name.clone(), "not screened (see errors)".to_string()];
-                row.extend(std::iter::repeat_n(String::new(), STEP_HEADER.len() - 2));
-                row
-            }
-        })
-        .collect();
+    let rows = step_rows(s);
     out.push_str(&md_table(&STEP_HEADER, &rows));
     for step in &s.steps {
         let Ok(r) = &step.result else { continue };

@@ -4,7 +4,7 @@
 //! page itself. No script, no external resource: the page opens offline.
 
 use super::hazard::{
-    compound_cells, error_lines, heading_lines, method_lines, step_cells, COMPOUND_HEADER,
+    compound_cells, error_lines, heading_lines, method_lines, step_rows, COMPOUND_HEADER,
     STEP_HEADER,
 };
 use crate::hazard::screen::{Screening, StepResult};
@@ -267,18 +267,7 @@ pub fn render_html(s: &Screening) -> String {
     out.push_str("<h2>Heats and adiabatic temperature rises</h2>");
     out.push_str(&chart_svg(&screened));
     out.push_str("<h2>Steps</h2>");
-    let rows: Vec<Vec<String>> = s
-        .steps
-        .iter()
-        .map(|step| match &step.result {
-            Ok(r) => step_cells(r),
-            Err(_) => {
-                let mut row = vec![step.name.clone(), "not screened (see errors)".to_string()];
-                row.extend(std::iter::repeat_n(String::new(), STEP_HEADER.len() - 2));
-                row
-            }
-        })
-        .collect();
+    let rows = step_rows(s);
     out.push_str(&html_table(&STEP_HEADER, &rows));
     out.push_str("<h2>Compounds</h2>");
     let rows: Vec<Vec<String>> = s.compounds.iter().map(compound_cells).collect();

@@ -115,6 +115,16 @@ pub fn record_title(input: &str, name: Option<&str>) -> String {
     }
 }
 
+/// The table view's block for a failed record: `place: error: message`, continuation lines
+/// indented, and a blank line.
+pub fn failed_block(error: &RowError) -> String {
+    format!(
+        "{}: error: {}\n\n",
+        error.place,
+        error.message.replace('\n', "\n  ")
+    )
+}
+
 /// Number of failed rows.
 pub fn failed_count<T>(rows: &[Row<T>]) -> usize {
     rows.iter()

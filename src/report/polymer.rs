@@ -106,11 +106,7 @@ pub fn render_table(rows: &[Row<PolymerRow>]) -> String {
         let r = match row {
             Row::Done(r) => r,
             Row::Failed { error } => {
-                out.push_str(&format!(
-                    "{}: error: {}\n\n",
-                    error.place,
-                    error.message.replace('\n', "\n  ")
-                ));
+                out.push_str(&super::failed_block(error));
                 continue;
             }
         };
