@@ -420,8 +420,10 @@ mod tests {
 
     #[test]
     fn coefficients_and_marks() {
-        let eq = ReactionEquation::parse("2 C=C.0.5 O=O>>2 C1CO1").expect("parses");
+        let eq = ReactionEquation::parse("2 C=C.O=O>>2 C1CO1").expect("parses");
         assert_eq!(eq.reactants[0].coefficient, 2.0);
+        assert!(eq.check_balance().is_ok());
+        let eq = ReactionEquation::parse("C=C.0.5 O=O>>C1CO1").expect("parses");
         assert_eq!(eq.reactants[1].coefficient, 0.5);
         assert!(eq.check_balance().is_ok());
         let eq = ReactionEquation::parse("1/2 O=O.[H][H]>>O{l}").expect("parses");
