@@ -2,11 +2,11 @@
 
 pub mod cantera_yaml;
 pub mod computed;
-pub mod polynomials;
 pub mod energetics;
 pub mod hazard;
 pub mod html;
 pub mod polymer;
+pub mod polynomials;
 pub mod reactions;
 pub mod strain;
 pub mod structure;
