@@ -4,7 +4,7 @@
 
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
 
-use super::{cell, pm, write_csv, Row, RowError, SAFETY_NOTE};
+use super::{pm, quantity_cells, write_csv, Row, RowError, SAFETY_NOTE};
 use crate::input::Place;
 use crate::reactions::energetics::{
     reaction_energetics, EnergeticsData, EnergeticsOptions, ReactionEnergetics,
@@ -214,25 +214,23 @@ pub fn render_csv(rows: &[Row<EnergeticsRow>]) -> String {
             Row::Done(r) => {
                 let e = &r.energetics;
                 for t in &e.rows {
-                    let v = |q: Option<crate::thermo::Quantity>, d| cell(q.map(|q| q.value), d);
-                    let u =
-                        |q: Option<crate::thermo::Quantity>, d| cell(q.map(|q| q.uncertainty), d);
-                    lines.push(vec![
-                        e.equation.clone(),
-                        r.name.clone().unwrap_or_default(),
-                        format!("{:.2}", t.t_k),
-                        v(t.dh_kj, 3),
-                        u(t.dh_kj, 3),
-                        v(t.ds_j, 3),
-                        u(t.ds_j, 3),
-                        v(t.dg_kj, 3),
-                        u(t.dg_kj, 3),
-                        v(t.log10_k, 3),
-                        u(t.log10_k, 3),
-                        cell(Some(e.dh298_j_per_g.value), 1),
-                        cell(Some(e.dh298_j_per_g.uncertainty), 1),
-                        t.note.clone().unwrap_or_default(),
-                    ]);
+                    let q = quantity_cells;
+                    lines.push(
+                        [
+                            vec![
+                                e.equation.clone(),
+                                r.name.clone().unwrap_or_default(),
+                                format!("{:.2}", t.t_k),
+                            ],
+                            q(t.dh_kj, 3).to_vec(),
+                            q(t.ds_j, 3).to_vec(),
+                            q(t.dg_kj, 3).to_vec(),
+                            q(t.log10_k, 3).to_vec(),
+                            q(Some(e.dh298_j_per_g), 1).to_vec(),
+                            vec![t.note.clone().unwrap_or_default()],
+                        ]
+                        .concat(),
+                    );
                 }
             }
             Row::Failed { error } => lines.push(error.csv_cells(header.len())),

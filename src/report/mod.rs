@@ -94,6 +94,17 @@ pub fn cell(value: Option<f64>, decimals: usize) -> String {
     }
 }
 
+/// The two CSV cells of a quantity, value then uncertainty, or two empty cells.
+pub fn quantity_cells(
+    q: Option<crate::thermo::quantity::Quantity>,
+    decimals: usize,
+) -> [String; 2] {
+    [
+        cell(q.map(|q| q.value), decimals),
+        cell(q.map(|q| q.uncertainty), decimals),
+    ]
+}
+
 /// `value ± uncertainty` scaled by `factor`, or `n/a`.
 pub fn pm(q: Option<crate::thermo::quantity::Quantity>, factor: f64, decimals: usize) -> String {
     match q {

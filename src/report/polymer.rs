@@ -3,7 +3,7 @@
 
 use comfy_table::{presets::UTF8_FULL_CONDENSED, Table};
 
-use super::{cell, pm, write_csv, Row, RowError, SAFETY_NOTE};
+use super::{pm, quantity_cells, write_csv, Row, RowError, SAFETY_NOTE};
 use crate::input::InputRecord;
 use crate::molecule::parse_smiles;
 use crate::polymer::thermo::gas_standard_state_shift_j;
@@ -230,31 +230,32 @@ pub fn render_csv(rows: &[Row<PolymerRow>]) -> String {
         match row {
             Row::Done(r) => {
                 let p = &r.polymerisation;
-                lines.push(vec![
-                    r.input.clone(),
-                    r.name.clone().unwrap_or_default(),
-                    format!("{:?}", p.state),
-                    cell(Some(p.dh_p_kj.value), 2),
-                    cell(Some(p.dh_p_kj.uncertainty), 2),
-                    cell(p.ds_p_j.map(|q| q.value), 1),
-                    cell(p.ds_p_j.map(|q| q.uncertainty), 1),
-                    format!("{}", p.concentration_mol_l),
-                    format!("{:.2}", p.temperature_k),
-                    cell(p.dg_p_kj.map(|q| q.value), 2),
-                    cell(p.dg_p_kj.map(|q| q.uncertainty), 2),
-                    p.limit_kind.map(|k| format!("{k:?}")).unwrap_or_default(),
-                    cell(p.limit_k.map(|q| q.value), 1),
-                    cell(p.limit_k.map(|q| q.uncertainty), 1),
-                    format!(
-                        "{:?}{}",
-                        p.favourability,
-                        if p.verdict_within_uncertainty {
-                            " (marginal)"
-                        } else {
-                            ""
-                        }
-                    ),
-                ]);
+                let q = quantity_cells;
+                let marginal = if p.verdict_within_uncertainty {
+                    " (marginal)"
+                } else {
+                    ""
+                };
+                lines.push(
+                    [
+                        vec![
+                            r.input.clone(),
+                            r.name.clone().unwrap_or_default(),
+                            format!("{:?}", p.state),
+                        ],
+                        q(Some(p.dh_p_kj), 2).to_vec(),
+                        q(p.ds_p_j, 1).to_vec(),
+                        vec![
+                            format!("{}", p.concentration_mol_l),
+                            format!("{:.2}", p.temperature_k),
+                        ],
+                        q(p.dg_p_kj, 2).to_vec(),
+                        vec![p.limit_kind.map(|k| format!("{k:?}")).unwrap_or_default()],
+                        q(p.limit_k, 1).to_vec(),
+                        vec![format!("{:?}{marginal}", p.favourability)],
+                    ]
+                    .concat(),
+                );
             }
             Row::Failed { error } => lines.push(error.csv_cells(header.len())),
         }
